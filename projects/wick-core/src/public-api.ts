@@ -1,0 +1,9 @@
+/*
+ * Public API of wick-core: the only door into the physics library.
+ */
+export * from './errors';
+export * from './validate';
+export * from './constants';
+export * from './version';
+export * from './api/model-spec';
+export * from './api/wire';

@@ -1,0 +1,59 @@
+import compression from 'compression';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import morgan from 'morgan';
+import { join } from 'node:path';
+import type { Sequelize } from 'sequelize';
+import type { AppConfig } from './config';
+import { errorHandler, notFoundHandler } from './errors';
+import { healthRouter } from './routes/health.router';
+
+export interface AppDeps {
+  readonly config: AppConfig;
+  readonly sequelize: Sequelize;
+}
+
+/** Builds the Express app; `main.ts` listens. Tests use the app without a port. */
+export function createApp(deps: AppDeps): Express {
+  const { config } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          // Angular Material and plotly add style elements at run time; scripts stay same-origin only.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'worker-src': ["'self'", 'blob:'],
+          'upgrade-insecure-requests': null,
+        },
+      },
+      // Plain-http loopback deployments would otherwise be told to use https.
+      strictTransportSecurity: config.publicUrl.startsWith('https:'),
+    }),
+  );
+  app.use(compression());
+  if (config.logRequests) app.use(morgan(':date[iso] :method :url :status :response-time ms'));
+  app.use(express.json({ limit: '1mb' }));
+
+  app.use('/api/health', healthRouter(deps));
+
+  app.use('/api', notFoundHandler);
+  if (config.uiDir) {
+    const uiDir = config.uiDir;
+    app.use(express.static(uiDir, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app shell.
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(join(uiDir, 'index.html'));
+    });
+  }
+  app.use(notFoundHandler);
+  app.use(errorHandler);
+  return app;
+}
