@@ -7,3 +7,4 @@ export * from './constants';
 export * from './version';
 export * from './api/model-spec';
 export * from './api/wire';
+export * from './api/permissions';
