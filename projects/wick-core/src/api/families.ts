@@ -1,0 +1,15 @@
+/** Every model family's specs, in the order `wick list` shows them. */
+import type { ModelSpec } from './model-spec';
+import { unitsModels } from '../units/models';
+import { liquidsModels } from '../liquids/models';
+import { laplaceModels } from '../laplace/models';
+import { kelvinModels } from '../kelvin/models';
+import { jurinModels } from '../jurin/models';
+
+export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]> = [
+  unitsModels,
+  liquidsModels,
+  laplaceModels,
+  kelvinModels,
+  jurinModels,
+];
