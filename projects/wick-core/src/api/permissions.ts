@@ -63,3 +63,87 @@ export interface CurrentUser {
   readonly roles: readonly Role[];
   readonly permissions: readonly Permission[];
 }
+
+export function isRole(value: unknown): value is Role {
+  return typeof value === 'string' && (ROLES as readonly string[]).includes(value);
+}
+
+/** Every permission the roles grant, in the table's order. */
+export function permissionsOf(roles: readonly string[]): Permission[] {
+  return (Object.keys(PERMISSIONS) as Permission[]).filter((p) => rolesAllow(roles, p));
+}
+
+/** The roles that hold a permission (for messages such as "this needs the Reviewer role"). */
+export function rolesWith(permission: Permission): readonly Role[] {
+  return PERMISSIONS[permission];
+}
+
+// ── Administration: people, role overrides, audit log ──────────────────────────────────────────────────────
+
+/** A person as the administration screen lists them. Effective roles = (provider's ∪ granted) − revoked. */
+export interface AdminUser {
+  readonly id: number;
+  readonly subject: string;
+  readonly name: string;
+  readonly email: string;
+  /** Roles the identity provider sent at the last sign-in. */
+  readonly idpRoles: readonly Role[];
+  readonly grantedRoles: readonly Role[];
+  readonly revokedRoles: readonly Role[];
+  readonly roles: readonly Role[];
+  /** ISO 8601. */
+  readonly lastSignInAt: string | null;
+}
+
+/** `PUT /api/admin/users/:id/roles`: the administrator's overrides on top of the provider's roles. */
+export interface RoleOverrides {
+  readonly granted: readonly Role[];
+  readonly revoked: readonly Role[];
+}
+
+/** What the audit log records. */
+export const AUDIT_ACTIONS = [
+  'sign-in',
+  'sign-out',
+  'create',
+  'update',
+  'submit',
+  'approve',
+  'return',
+  'delete',
+  'export',
+] as const;
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+
+/** One audit log row: who did what to which record, when. */
+export interface AuditEntry {
+  readonly id: number;
+  /** ISO 8601. */
+  readonly at: string;
+  readonly actor: { readonly id: number; readonly name: string } | null;
+  readonly action: AuditAction;
+  readonly entityType: string;
+  readonly entityId: string | null;
+  readonly details: Readonly<Record<string, unknown>> | null;
+}
+
+/** `GET /api/admin/audit` filters (all optional); `from`/`to` are ISO dates or date-times. */
+export interface AuditFilter {
+  readonly action?: AuditAction;
+  readonly actorId?: number;
+  readonly entityType?: string;
+  readonly entityId?: string;
+  readonly from?: string;
+  readonly to?: string;
+  readonly limit?: number;
+  readonly offset?: number;
+}
+
+export interface AuditPage {
+  readonly total: number;
+  readonly limit: number;
+  readonly offset: number;
+  readonly entries: readonly AuditEntry[];
+  /** Entity types present in the log, for the filter's choices. */
+  readonly entityTypes: readonly string[];
+}
