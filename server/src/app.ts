@@ -4,13 +4,20 @@ import helmet from 'helmet';
 import morgan from 'morgan';
 import { join } from 'node:path';
 import type { Sequelize } from 'sequelize';
+import { installAuth } from './auth';
+import type { AuthConfig } from './auth/auth-config';
 import type { AppConfig } from './config';
 import { errorHandler, notFoundHandler } from './errors';
+import { adminRouter } from './routes/admin.router';
+import { authRouter } from './routes/auth.router';
 import { healthRouter } from './routes/health.router';
+import { meRouter } from './routes/me.router';
 
 export interface AppDeps {
   readonly config: AppConfig;
   readonly sequelize: Sequelize;
+  /** Sign-in settings to replace (tests: a provider on a random port, short timeouts, a small rate limit). */
+  readonly auth?: Partial<AuthConfig>;
 }
 
 /** Builds the Express app; `main.ts` listens. Tests use the app without a port. */
@@ -41,7 +48,12 @@ export function createApp(deps: AppDeps): Express {
   if (config.logRequests) app.use(morgan(':date[iso] :method :url :status :response-time ms'));
   app.use(express.json({ limit: '1mb' }));
 
+  // Sessions, passport, res.locals.user and CSRF checks for /api and /auth; routers come after.
+  const auth = installAuth(app, deps, deps.auth);
   app.use('/api/health', healthRouter(deps));
+  app.use('/auth', authRouter(deps, auth));
+  app.use('/api/me', meRouter(deps, auth));
+  app.use('/api/admin', adminRouter(deps));
 
   app.use('/api', notFoundHandler);
   if (config.uiDir) {
