@@ -14,3 +14,7 @@ export * from './liquids';
 export * from './laplace';
 export * from './kelvin';
 export * from './jurin';
+export * from './numeric';
+export * from './washburn';
+export * from './fibre-bed';
+export * from './permeability';

@@ -5,6 +5,9 @@ import { liquidsModels } from '../liquids/models';
 import { laplaceModels } from '../laplace/models';
 import { kelvinModels } from '../kelvin/models';
 import { jurinModels } from '../jurin/models';
+import { washburnModels } from '../washburn/models';
+import { fibreBedModels } from '../fibre-bed/models';
+import { permeabilityModels } from '../permeability/models';
 
 export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]> = [
   unitsModels,
@@ -12,4 +15,7 @@ export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]>
   laplaceModels,
   kelvinModels,
   jurinModels,
+  washburnModels,
+  fibreBedModels,
+  permeabilityModels,
 ];

@@ -1,0 +1,4 @@
+export * from './fibre';
+export * from './blend';
+export * from './bed';
+export * from './models';

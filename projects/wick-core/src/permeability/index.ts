@@ -1,0 +1,2 @@
+export * from './correlations';
+export * from './models';
