@@ -18,3 +18,6 @@ export * from './numeric';
 export * from './washburn';
 export * from './fibre-bed';
 export * from './permeability';
+export * from './pore-size';
+export * from './tolerance';
+export * from './fitting';

@@ -3,14 +3,16 @@ import { join } from 'node:path';
 import { listModels, runBatch, runModel } from './compute';
 
 describe('model registry (runModel / runBatch)', () => {
-  it('lists every model once, each parameter with a unit or a kind that needs none', () => {
+  it('lists every model once; a numeric parameter has a unit, or says it takes SI values as given', () => {
     const models = listModels();
     const ids = models.map((m) => m.id);
     expect(new Set(ids).size).toBe(ids.length);
     for (const m of models) {
       expect(m.summary.length).toBeGreaterThan(20);
       for (const p of m.parameters) {
-        if (p.kind === 'number' || p.kind === 'number[]') expect(p.unit).withContext(`${m.id}.${p.name}`).not.toBe('');
+        if ((p.kind === 'number' || p.kind === 'number[]') && p.unit === '') {
+          expect(p.description).withContext(`${m.id}.${p.name}`).toMatch(/\bSI\b/);
+        }
       }
     }
   });

@@ -8,6 +8,9 @@ import { jurinModels } from '../jurin/models';
 import { washburnModels } from '../washburn/models';
 import { fibreBedModels } from '../fibre-bed/models';
 import { permeabilityModels } from '../permeability/models';
+import { poreSizeModels } from '../pore-size/models';
+import { toleranceModels } from '../tolerance/models';
+import { fittingModels } from '../fitting/models';
 
 export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]> = [
   unitsModels,
@@ -18,4 +21,7 @@ export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]>
   washburnModels,
   fibreBedModels,
   permeabilityModels,
+  poreSizeModels,
+  toleranceModels,
+  fittingModels,
 ];

@@ -11,7 +11,8 @@ export interface ParameterSpec {
   readonly label: string;
   /**
    * Unit a bare number is read in, as the units module writes it ('m', 'N/m', 'Pa s', 'kg/m^3',
-   * 'deg', 's', 'K', 'm^2', '1' for dimensionless). Empty for non-numeric parameters.
+   * 'deg', 's', 'K', 'm^2', '1' for dimensionless). Empty for non-numeric parameters, and for numeric ones whose
+   * quantity depends on another parameter: those take SI values as given (their description says so).
    */
   readonly unit: string;
   readonly kind: 'number' | 'number[]' | 'string' | 'boolean' | 'object';
