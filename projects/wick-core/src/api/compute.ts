@@ -8,6 +8,7 @@ import { parseQuantity, toSI, unitDimension } from '../units';
 import { WICK_CORE_VERSION } from '../version';
 import type { ModelSpec, ParameterSpec } from './model-spec';
 import { MODEL_FAMILIES } from './families';
+import { toPlain } from './plain';
 
 export interface ComputeRequest {
   readonly model: string;
@@ -122,7 +123,7 @@ export function runModel(request: ComputeRequest): ComputeResponse {
   try {
     const spec = findModel(model);
     const result = spec.run(prepareInputs(spec, request.inputs ?? {}));
-    return { ok: true, model, coreVersion: WICK_CORE_VERSION, result: toWire(result) };
+    return { ok: true, model, coreVersion: WICK_CORE_VERSION, result: toPlain(result) };
   } catch (e) {
     if (!isDomainError(e)) throw e;
     return { ok: false, model, coreVersion: WICK_CORE_VERSION, error: { code: e.code, message: e.message, field: e.field } };
@@ -134,16 +135,4 @@ export function runBatch(batch: BatchComputeRequest): BatchComputeResponse {
     throw new DomainError('invalid-input', 'A batch needs a "requests" list.', 'requests');
   }
   return { coreVersion: WICK_CORE_VERSION, results: batch.requests.map(runModel) };
-}
-
-/** Typed arrays become plain arrays so results survive JSON.stringify unchanged. */
-function toWire(value: unknown): unknown {
-  if (ArrayBuffer.isView(value) && !(value instanceof DataView)) return Array.from(value as unknown as ArrayLike<number>);
-  if (Array.isArray(value)) return value.map(toWire);
-  if (value && typeof value === 'object') {
-    const out: Record<string, unknown> = {};
-    for (const [k, v] of Object.entries(value)) out[k] = toWire(v);
-    return out;
-  }
-  return value;
 }

@@ -11,6 +11,7 @@ import { permeabilityModels } from '../permeability/models';
 import { poreSizeModels } from '../pore-size/models';
 import { toleranceModels } from '../tolerance/models';
 import { fittingModels } from '../fitting/models';
+import { stackModels } from '../stack/models';
 
 export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]> = [
   unitsModels,
@@ -24,4 +25,5 @@ export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]>
   poreSizeModels,
   toleranceModels,
   fittingModels,
+  stackModels,
 ];

@@ -37,5 +37,4 @@ export {
   type Series,
   type TimeToHeightError,
 } from './metrics';
-export { toPlain, type Plain } from './to-plain';
 export { fittingModels } from './models';

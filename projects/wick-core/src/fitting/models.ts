@@ -3,7 +3,7 @@ import { referenceLiquidContactAngle, type ReferenceLiquidInput } from './contac
 import { fitGravityWashburn, type GravityFitInput } from './gravity-fit';
 import { predictionError, type PredictionErrorInput } from './metrics';
 import { replicateStatistics, type ReplicateInput } from './replicates';
-import { toPlain } from './to-plain';
+import { toPlain } from '../api/plain';
 import { fitWashburnSlope, type WashburnSlopeInput } from './washburn-slope';
 
 const series: ParameterSpec[] = [

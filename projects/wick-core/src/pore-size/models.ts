@@ -1,5 +1,5 @@
 import type { ModelSpec, ParameterSpec } from '../api/model-spec';
-import { toPlain } from '../fitting/to-plain';
+import { toPlain } from '../api/plain';
 import { poreSizeEquilibrium, type PoreSizeEquilibriumInput } from './equilibrium';
 import { poreSizeStatistics } from './statistics';
 import { poreSizeUptake, type PoreSizeUptakeInput } from './uptake';

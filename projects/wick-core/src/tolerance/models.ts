@@ -1,5 +1,5 @@
 import type { ModelSpec, ParameterSpec } from '../api/model-spec';
-import { toPlain } from '../fitting/to-plain';
+import { toPlain } from '../api/plain';
 import { timeToHeightTolerance, uptakeBand, type TimeToHeightToleranceInput, type UptakeBandInput } from './capillary-cases';
 
 const capillaryParameters: ParameterSpec[] = [
