@@ -30,7 +30,8 @@ function describe(m: ModelDescription): string {
       return `      ${p.name}${unit}${opt}${choices} — ${p.label}`;
     })
     .join('\n');
-  return `  ${m.id}  (${m.family})\n    ${m.title}: ${m.summary}\n${params}`;
+  const example = m.example ? `\n    example: echo '${JSON.stringify({ inputs: m.example })}' | wick run ${m.id}` : '';
+  return `  ${m.id}  (${m.family})\n    ${m.title}: ${m.summary}\n${params}${example}`;
 }
 
 async function main(argv: string[]): Promise<number> {

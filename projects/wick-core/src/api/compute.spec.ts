@@ -1,6 +1,7 @@
 import { execFileSync, spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { listModels, runBatch, runModel } from './compute';
+import { MODEL_EXAMPLES } from './examples';
 
 describe('model registry (runModel / runBatch)', () => {
   it('lists every model once; a numeric parameter has a unit, or says it takes SI values as given', () => {
@@ -65,4 +66,27 @@ describe('wick CLI', () => {
     const domain = spawnSync(process.execPath, [bin, 'run', 'water-properties'], { input: '{"temperature":"3 kg"}', encoding: 'utf8' });
     expect(domain.status).toBe(1);
   });
+});
+
+describe('every model answers its example request', () => {
+  /** No NaN or Infinity anywhere in a result (null stands for "not reached"). */
+  function badNumbers(value: unknown, path = 'result'): string[] {
+    if (typeof value === 'number') return Number.isFinite(value) ? [] : [path];
+    if (Array.isArray(value)) return value.flatMap((v, i) => badNumbers(v, `${path}[${i}]`));
+    if (value && typeof value === 'object') return Object.entries(value).flatMap(([k, v]) => badNumbers(v, `${path}.${k}`));
+    return [];
+  }
+
+  it('has an example for each registered model and no example for a model that does not exist', () => {
+    const ids = listModels().map((m) => m.id).sort();
+    expect(Object.keys(MODEL_EXAMPLES).sort()).toEqual(ids);
+  });
+
+  for (const [model, inputs] of Object.entries(MODEL_EXAMPLES)) {
+    it(`${model}: ok, JSON-safe, no NaN or Infinity`, () => {
+      const response = runModel({ model, inputs });
+      if (!response.ok) fail(`${model}: ${response.error.message}`);
+      expect(badNumbers(JSON.parse(JSON.stringify(response)))).toEqual([]);
+    });
+  }
 });

@@ -9,6 +9,7 @@ import { WICK_CORE_VERSION } from '../version';
 import type { ModelSpec, ParameterSpec } from './model-spec';
 import { MODEL_FAMILIES } from './families';
 import { toPlain } from './plain';
+import { MODEL_EXAMPLES } from './examples';
 
 export interface ComputeRequest {
   readonly model: string;
@@ -34,14 +35,14 @@ export interface BatchComputeResponse {
 }
 
 /** What `wick list` prints and `GET /api/compute/models` answers: every model without its function. */
-export type ModelDescription = Omit<ModelSpec, 'run'>;
+export type ModelDescription = Omit<ModelSpec, 'run'> & { readonly example?: Readonly<Record<string, unknown>> };
 
 const REGISTRY: ReadonlyMap<string, ModelSpec> = new Map(
   MODEL_FAMILIES.flat().map((spec) => [spec.id, spec as ModelSpec]),
 );
 
 export function listModels(): ModelDescription[] {
-  return [...REGISTRY.values()].map(({ run: _run, ...description }) => description);
+  return [...REGISTRY.values()].map(({ run: _run, ...description }) => ({ ...description, example: MODEL_EXAMPLES[description.id] }));
 }
 
 export function findModel(id: string): ModelSpec {
@@ -88,7 +89,10 @@ function toSiValue(param: ParameterSpec, raw: unknown): unknown {
       if (typeof raw !== 'boolean') throw new DomainError('invalid-input', `${param.label} must be true or false.`, param.name);
       return raw;
     case 'object':
-      if (typeof raw !== 'object' || raw === null) throw new DomainError('invalid-input', `${param.label} must be an object.`, param.name);
+      // Structured JSON (an object, a list, or a keyword such as "auto"); the model validates its shape.
+      if (typeof raw === 'number' || typeof raw === 'boolean') {
+        throw new DomainError('invalid-input', `${param.label}: ${param.description}`, param.name);
+      }
       return raw;
   }
 }

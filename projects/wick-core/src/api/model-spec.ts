@@ -15,6 +15,7 @@ export interface ParameterSpec {
    * quantity depends on another parameter: those take SI values as given (their description says so).
    */
   readonly unit: string;
+  /** 'object': structured JSON (object, list or keyword) whose shape the description gives and the model checks. */
   readonly kind: 'number' | 'number[]' | 'string' | 'boolean' | 'object';
   readonly description: string;
   readonly optional?: boolean;

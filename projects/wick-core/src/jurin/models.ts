@@ -29,7 +29,7 @@ const densityParameters: readonly ParameterSpec[] = [
   },
 ];
 
-const radius: ParameterSpec = { name: 'radius', label: 'Tube radius', unit: 'm', kind: 'number', description: 'Inner radius r of the capillary.' };
+const radius: ParameterSpec = { name: 'radius', label: 'Tube radius', unit: 'mm', kind: 'number', description: 'Inner radius r of the capillary.' };
 
 export const jurinModels: ModelSpec[] = [
   {
@@ -39,7 +39,7 @@ export const jurinModels: ModelSpec[] = [
     summary:
       'Equilibrium rise h = 2γ cos θ/(Δρ g r) in a tube, with the hemispherical-meniscus correction h − r/3 and the length h/sin α along a tilted tube (Jurin 1718, Rayleigh 1916).',
     parameters: [
-      { name: 'surfaceTension', label: 'Surface tension', unit: 'N/m', kind: 'number', description: 'Liquid surface tension γ.' },
+      { name: 'surfaceTension', label: 'Surface tension', unit: 'mN/m', kind: 'number', description: 'Liquid surface tension γ.' },
       {
         name: 'contactAngle',
         label: 'Contact angle',
@@ -69,7 +69,7 @@ export const jurinModels: ModelSpec[] = [
     summary:
       'Surface tension from a measured rise, γ = ½Δρ g r h/cos θ, and with the meniscus correction γ = ½Δρ g r (h + r/3)/cos θ (Adamson & Gast Ch. II).',
     parameters: [
-      { name: 'height', label: 'Measured rise', unit: 'm', kind: 'number', description: 'Vertical rise h to the bottom of the meniscus.' },
+      { name: 'height', label: 'Measured rise', unit: 'mm', kind: 'number', description: 'Vertical rise h to the bottom of the meniscus.' },
       radius,
       {
         name: 'contactAngle',

@@ -20,7 +20,7 @@ const liquidParameters: readonly ParameterSpec[] = [
   {
     name: 'surfaceTension',
     label: 'Surface tension',
-    unit: 'N/m',
+    unit: 'mN/m',
     kind: 'number',
     optional: true,
     description: 'Liquid surface tension γ; water at the temperature (IAPWS R1-76) when omitted.',
@@ -67,7 +67,7 @@ export const kelvinModels: ModelSpec[] = [
     title: 'Kelvin equation: droplet',
     summary: 'Vapour pressure over a droplet of radius r relative to a flat surface, ln(p/p0) = 2γVm/(rRT) (Thomson 1871).',
     parameters: [
-      { name: 'radius', label: 'Droplet radius', unit: 'm', kind: 'number', description: 'Droplet radius r.' },
+      { name: 'radius', label: 'Droplet radius', unit: 'nm', kind: 'number', description: 'Droplet radius r.' },
       ...liquidParameters,
     ],
     run: (input) => kelvinDroplet(input as unknown as KelvinDropletInput),
@@ -78,7 +78,7 @@ export const kelvinModels: ModelSpec[] = [
     title: 'Kelvin equation: pore meniscus',
     summary: 'Vapour pressure over the meniscus in a pore of radius r, ln(p/p0) = −2γVm cos θ/(rRT) (Thomson 1871).',
     parameters: [
-      { name: 'radius', label: 'Pore radius', unit: 'm', kind: 'number', description: 'Cylindrical pore radius r.' },
+      { name: 'radius', label: 'Pore radius', unit: 'nm', kind: 'number', description: 'Cylindrical pore radius r.' },
       contactAngle,
       ...liquidParameters,
     ],

@@ -15,7 +15,7 @@ import {
 const surfaceTension: ParameterSpec = {
   name: 'surfaceTension',
   label: 'Surface tension',
-  unit: 'N/m',
+  unit: 'mN/m',
   kind: 'number',
   description: 'Liquid–gas surface tension γ (water at 20 °C: 0.0727 N/m).',
 };
@@ -29,7 +29,7 @@ const contactAngle: ParameterSpec = {
 const radius = (what: string): ParameterSpec => ({
   name: 'radius',
   label: 'Radius',
-  unit: 'm',
+  unit: 'um',
   kind: 'number',
   description: what,
 });
@@ -45,14 +45,14 @@ export const laplaceModels: ModelSpec[] = [
       {
         name: 'radius1',
         label: 'First principal radius',
-        unit: 'm',
+        unit: 'um',
         kind: 'number',
         description: 'R1, positive when the surface is convex towards the outside, negative when concave.',
       },
       {
         name: 'radius2',
         label: 'Second principal radius',
-        unit: 'm',
+        unit: 'um',
         kind: 'number',
         optional: true,
         description: 'R2 with the same sign rule; leave empty for a surface flat in that direction.',
@@ -100,7 +100,7 @@ export const laplaceModels: ModelSpec[] = [
     parameters: [
       surfaceTension,
       contactAngle,
-      { name: 'gap', label: 'Gap', unit: 'm', kind: 'number', description: 'Distance w between the plates.' },
+      { name: 'gap', label: 'Gap', unit: 'um', kind: 'number', description: 'Distance w between the plates.' },
     ],
     run: (input) => slitMeniscus(input as unknown as SlitMeniscusInput),
   },
