@@ -10,7 +10,10 @@ import type { AppConfig } from './config';
 import { errorHandler, notFoundHandler } from './errors';
 import { adminRouter } from './routes/admin.router';
 import { authRouter } from './routes/auth.router';
+import { devMailboxRouter } from './routes/dev-mailbox.router';
+import { docsRouter } from './routes/docs.router';
 import { healthRouter } from './routes/health.router';
+import { libraryRouter } from './routes/library.router';
 import { meRouter } from './routes/me.router';
 
 export interface AppDeps {
@@ -54,6 +57,9 @@ export function createApp(deps: AppDeps): Express {
   app.use('/auth', authRouter(deps, auth));
   app.use('/api/me', meRouter(deps, auth));
   app.use('/api/admin', adminRouter(deps));
+  app.use('/api/library', libraryRouter(deps));
+  app.use('/api/dev/mailbox', devMailboxRouter(deps));
+  app.use('/api/docs', docsRouter(deps));
 
   app.use('/api', notFoundHandler);
   if (config.uiDir) {

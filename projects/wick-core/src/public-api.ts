@@ -23,3 +23,4 @@ export * from './pore-size';
 export * from './tolerance';
 export * from './fitting';
 export * from './stack';
+export * from './api/library';
