@@ -10,7 +10,9 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
-import { NAV_ITEMS } from './core/navigation';
+import { UserMenu } from './core/auth/user-menu';
+import { AuthStore } from './core/auth/auth-store';
+import { visibleNavItems } from './core/navigation';
 import { WickMark } from './shared/wick-mark/wick-mark';
 
 const THEME_KEY = 'wick-theme';
@@ -27,6 +29,7 @@ const THEME_KEY = 'wick-theme';
     RouterLink,
     RouterLinkActive,
     RouterOutlet,
+    UserMenu,
     WickMark,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,7 +38,12 @@ const THEME_KEY = 'wick-theme';
 })
 export class App {
   private readonly document = inject(DOCUMENT);
-  protected readonly navItems = NAV_ITEMS;
+  private readonly auth = inject(AuthStore);
+  /** Before sign-in every area is listed (opening one asks to sign in); after it, only what the roles allow. */
+  protected readonly navItems = computed(() => {
+    const status = this.auth.status();
+    return visibleNavItems(status === 'signed-in' || status === 'no-role', (p) => this.auth.can(p));
+  });
   protected readonly handset = toSignal(
     inject(BreakpointObserver)
       .observe([Breakpoints.XSmall, Breakpoints.Small])
