@@ -75,6 +75,16 @@ function portOpen(port, host = '127.0.0.1') {
   });
 }
 
+/** First base port from `start` (in steps of 20) whose app, provider and mail ports are all free. */
+export async function freePortBase(start) {
+  for (let base = start; base < start + 400; base += 20) {
+    const ports = [base, base + 1, base + 15, base + 16];
+    const taken = await Promise.all(ports.map((p) => portOpen(p)));
+    if (!taken.some(Boolean)) return base;
+  }
+  fail(`No free block of ports found from ${start}; set WICK_E2E_PORT.`);
+}
+
 export async function waitForPort(port, what, timeoutMs = 60_000) {
   const end = Date.now() + timeoutMs;
   while (Date.now() < end) {
@@ -149,6 +159,11 @@ export async function ensurePostgres() {
       const c = asPg('createdb', ['-h', sockDir, '-p', String(port), '-U', 'wick', db], { stdio: 'inherit' });
       if (c.status !== 0) fail(`Could not create database ${db}.`);
       return true;
+    },
+    /** Sessions of other clients (another test run, a running app) on this cluster. */
+    otherConnections() {
+      const r = asPg('psql', ['-h', sockDir, '-p', String(port), '-U', 'wick', '-d', 'postgres', '-tAc', 'SELECT count(*) FROM pg_stat_activity WHERE datname IS NOT NULL AND pid <> pg_backend_pid()'], { encoding: 'utf8' });
+      return Number(r.stdout?.trim() || 0);
     },
     dropDatabase(db) {
       asPg('dropdb', ['-h', sockDir, '-p', String(port), '-U', 'wick', '--if-exists', '--force', db], { stdio: 'inherit' });

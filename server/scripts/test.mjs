@@ -1,8 +1,9 @@
 // `npm test`: the same bootstrapping as `npm start`, then every suite. Ends with one plain line
 // `N passed, N failed` summing all suites, and exits non-zero on any failure or on a suite that ran nothing.
 import { spawn } from 'node:child_process';
+import { rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { ROOT, buildUi, ensureChromium, ensureDependencies, ensurePostgres, log, migrateAndSeed } from './bootstrap.mjs';
+import { ROOT, buildUi, ensureChromium, ensureDependencies, ensurePostgres, freePortBase, log, migrateAndSeed } from './bootstrap.mjs';
 
 const only = process.argv.slice(2); // e.g. `npm test -- core server`
 const want = (name) => only.length === 0 || only.includes(name);
@@ -13,6 +14,14 @@ const chrome = want('ui') || want('e2e') ? ensureChromium() : undefined;
 const pg = await ensurePostgres();
 
 const results = [];
+const createdDbs = [];
+const stateDirs = [];
+/** A state folder (keys, secrets, mail store) of this run alone, removed at the end. */
+function runStateDir(name) {
+  const dir = join(ROOT, '.wick', `${name}-state-${process.pid}`);
+  stateDirs.push(dir);
+  return dir;
+}
 const NODE = process.execPath;
 const JASMINE = join(ROOT, 'node_modules', 'jasmine', 'bin', 'jasmine.js');
 
@@ -59,16 +68,18 @@ if (want('typecheck')) {
 if (want('core')) await jasmineSuite('wick-core', 'projects/wick-core/jasmine.json');
 
 if (want('server')) {
-  const db = 'wickwright_test';
+  // Per-run names: several runs (developers, helpers, CI) may share one cluster.
+  const db = `wickwright_test_${process.pid}`;
   let url;
   if (pg.external) url = pg.url();
   else {
     pg.dropDatabase(db);
     pg.createDatabase(db);
+    createdDbs.push(db);
     url = pg.url(db);
   }
   migrateAndSeed(url, { seed: false });
-  await jasmineSuite('server', 'server/jasmine.json', { DATABASE_URL: url, NODE_ENV: 'test', WICK_STATE_DIR: join(ROOT, '.wick', 'test-state') }, 'server/tsconfig.json');
+  await jasmineSuite('server', 'server/jasmine.json', { DATABASE_URL: url, NODE_ENV: 'test', WICK_STATE_DIR: runStateDir('server') }, 'server/tsconfig.json');
 }
 
 if (want('ui')) {
@@ -82,20 +93,21 @@ if (want('ui')) {
 
 if (want('e2e')) {
   log('— end-to-end (playwright-core, Debian chromium) —');
-  const db = 'wickwright_e2e';
+  const db = `wickwright_e2e_${process.pid}`;
   let url;
   if (pg.external) url = pg.url();
   else {
     pg.dropDatabase(db);
     pg.createDatabase(db);
+    createdDbs.push(db);
     url = pg.url(db);
   }
   migrateAndSeed(url);
   buildUi();
-  const ports = stackPorts(Number(process.env.WICK_E2E_PORT ?? 4710));
+  const ports = stackPorts(process.env.WICK_E2E_PORT ? Number(process.env.WICK_E2E_PORT) : await freePortBase(4710));
   let stack;
   try {
-    stack = await startStack({ databaseUrl: url, ports, env: { WICK_STATE_DIR: join(ROOT, '.wick', 'e2e-state'), WICK_LOG_REQUESTS: '0' } });
+    stack = await startStack({ databaseUrl: url, ports, env: { WICK_STATE_DIR: runStateDir('e2e'), WICK_LOG_REQUESTS: '0' } });
     await jasmineSuite('e2e', 'projects/wick-ui/e2e/jasmine.json', { WICK_E2E_URL: stack.appUrl, WICK_E2E_IDP_URL: stack.idpUrl, WICK_E2E_MAIL_API: `http://127.0.0.1:${ports.mailApi}`, CHROME_BIN: chrome });
   } catch (e) {
     record('e2e', 0, 1, 1, String(e));
@@ -104,7 +116,10 @@ if (want('e2e')) {
   }
 }
 
-pg.stop();
+if (!pg.external) for (const db of createdDbs) pg.dropDatabase(db);
+for (const dir of stateDirs) rmSync(dir, { recursive: true, force: true });
+if (!pg.external && pg.otherConnections() > 0) log('PostgreSQL stays up: another run is using it.');
+else pg.stop();
 const passed = results.reduce((s, r) => s + r.passed, 0);
 const failed = results.reduce((s, r) => s + r.failed, 0);
 console.log('');
