@@ -1,4 +1,5 @@
 import type { Browser } from 'playwright-core';
+import { NAV_ITEMS } from '../src/app/core/navigation';
 import { APP_URL, launch, openPage, screenshot } from './support/browser';
 
 describe('smoke: the app shell in a real browser', () => {
@@ -15,7 +16,7 @@ describe('smoke: the app shell in a real browser', () => {
 
     await page.locator('.brand').waitFor();
     expect(await page.locator('.brand').innerText()).toContain('Wickwright');
-    expect(await page.locator('mat-nav-list a').count()).toBe(7);
+    expect(await page.locator('mat-nav-list a').count()).toBe(NAV_ITEMS.length);
 
     const fontRequests = requests.filter((r) => r.resourceType() === 'font');
     expect(fontRequests.length).toBeGreaterThan(0);

@@ -19,12 +19,25 @@ const areaTitle =
 
 export const routes: Routes = [
   { path: '', pathMatch: 'full', title: 'Wickwright', loadComponent: () => import('./features/home/home').then((m) => m.Home) },
-  { path: 'materials', ...guarded('library:read'), ...planned('Materials library', 'Fibre and web entries with revisions and review arrive with the material library.') },
-  { path: 'liquids', ...guarded('library:read'), ...planned('Test liquids', 'Liquid entries (constants or temperature tables) arrive with the material library.') },
+  { path: 'materials', ...guarded('library:read'), data: { title: 'Materials library' }, loadChildren: () => import('./features/materials/materials.routes').then((m) => m.MATERIALS_ROUTES) },
+  { path: 'liquids', ...guarded('library:read'), data: { title: 'Test liquids' }, loadChildren: () => import('./features/liquids/liquids.routes').then((m) => m.LIQUIDS_ROUTES) },
   { path: 'designs', ...guarded('designs:read'), ...planned('Designs', 'Interactive wicking estimates for a layer arrive with the design workspace.') },
   { path: 'compare', ...guarded('designs:read'), ...planned('Compare & decide', 'Side-by-side variants and decision records arrive with the design workspace.') },
   { path: 'lab-data', ...guarded('labdata:read'), ...planned('Lab data', 'Uploading and fitting measured wicking curves arrives with the lab-data feature.') },
-  { path: 'reviews', ...guarded('library:review'), ...planned('Review queue', 'Approving and returning library entries arrives with the material library.') },
+  {
+    path: 'reviews',
+    ...guarded('library:review'),
+    title: 'Review queue · Wickwright',
+    data: { title: 'Review queue' },
+    loadComponent: () => import('./features/reviews/review-queue').then((m) => m.ReviewQueue),
+  },
+  {
+    path: 'dev-mailbox',
+    ...guarded('mail:read'),
+    title: 'Development mailbox · Wickwright',
+    data: { title: 'Development mailbox' },
+    loadComponent: () => import('./features/dev-mailbox/dev-mailbox').then((m) => m.DevMailbox),
+  },
   {
     path: 'admin',
     ...guarded('users:manage'),

@@ -18,6 +18,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { path: 'lab-data', label: 'Lab data', icon: 'science', hint: 'Measured wicking curves and fits', permission: 'labdata:read' },
   { path: 'reviews', label: 'Review queue', icon: 'fact_check', hint: 'Entries waiting for a second pair of eyes', permission: 'library:review' },
   { path: 'admin', label: 'Administration', icon: 'admin_panel_settings', hint: 'People, roles and the audit trail', permission: 'users:manage' },
+  { path: 'dev-mailbox', label: 'Dev mailbox', icon: 'mail', hint: 'Messages the app sent, as the local mail fake received them', permission: 'mail:read' },
 ];
 
 /** The areas a person sees: all of them before sign-in (each asks to sign in), only permitted ones after. */
