@@ -14,6 +14,10 @@ import { spread, type SpreadSummary } from './replicates';
  * n-hexane) gives C = K_ref η_ref / (ρ_ref² γ_ref); a test liquid's slope then gives
  *   cos θ = K η / (C ρ² γ).
  * Symbols: γ N/m, ρ kg/m³, η Pa·s, K kg²/s, C m⁵, θ rad.
+ *
+ * Height form (`quantity: 'height'`, strips read by the position of the front): h² = γ r cosθ t/(2η)
+ * (Washburn 1921) has no density, so K = dh²/dt (m²/s) of the reference gives C_h = K_ref η_ref/γ_ref (m;
+ * r_eff/2 for a capillary bundle) and cos θ = K η/(C_h γ). Same pooling and uncertainty as the mass form.
  * Assumptions: reference and test samples are packed identically (same C), the reference wets
  * completely, no swelling, dissolution or evaporation, viscous regime.
  *
@@ -25,11 +29,14 @@ import { spread, type SpreadSummary } from './replicates';
 export interface LiquidRuns {
   /** Surface tension γ, N/m. */
   readonly surfaceTension: number;
-  /** Density ρ, kg/m³. */
-  readonly density: number;
+  /** Density ρ, kg/m³. Needed for the mass form only. */
+  readonly density?: number;
   /** Viscosity η, Pa·s. */
   readonly viscosity: number;
-  /** Washburn slopes K = dm²/dt of each replicate run, kg²/s (e.g. from fitWashburnSlope with quantity 'mass'). */
+  /**
+   * Washburn slopes of each replicate run: K = dm²/dt in kg²/s (mass form), or K = dh²/dt in m²/s (height form),
+   * e.g. from fitWashburnSlope.
+   */
   readonly slopes: readonly number[];
 }
 
@@ -37,10 +44,12 @@ export interface ReferenceLiquidInput {
   /** Fully wetting reference liquid (cos θ taken as 1). */
   readonly reference: LiquidRuns;
   readonly test: LiquidRuns;
+  /** What the slopes were fitted to. Default 'mass'. */
+  readonly quantity?: 'mass' | 'height';
 }
 
 export interface ReferenceLiquidResult extends ResultBase<ReferenceLiquidInput> {
-  /** Material constant C per reference run, pooled, m⁵. */
+  /** Material constant per reference run, pooled: C in m⁵ (mass form) or C_h in m (height form). */
   readonly materialConstant: SpreadSummary & { readonly values: readonly number[] };
   /** cos θ per test run (unclamped), pooled. */
   readonly cosTheta: SpreadSummary & { readonly values: readonly number[]; readonly uncertainty: number };
@@ -59,9 +68,9 @@ export const REFERENCE_LIQUID_CAUTION =
   'the supplier’s safety data sheet and local regulations for storage and disposal. The contact angle is an ' +
   'engineering estimate; confirm decisions on skin-contact products with standard tests and qualified review.';
 
-function checkRuns(field: string, runs: LiquidRuns): void {
+function checkRuns(field: string, runs: LiquidRuns, quantity: 'mass' | 'height'): void {
   requirePositive(`${field}.surfaceTension`, runs.surfaceTension);
-  requirePositive(`${field}.density`, runs.density);
+  if (quantity === 'mass') requirePositive(`${field}.density`, runs.density as number);
   requirePositive(`${field}.viscosity`, runs.viscosity);
   if (!Array.isArray(runs.slopes) || runs.slopes.length < 1) {
     throw new DomainError('insufficient-data', `Give at least one ${field} slope.`, `${field}.slopes`);
@@ -71,13 +80,19 @@ function checkRuns(field: string, runs: LiquidRuns): void {
 
 export function referenceLiquidContactAngle(input: ReferenceLiquidInput): ReferenceLiquidResult {
   const { reference: ref, test } = input;
-  checkRuns('reference', ref);
-  checkRuns('test', test);
+  const quantity = input.quantity ?? 'mass';
+  if (quantity !== 'mass' && quantity !== 'height') {
+    throw new DomainError('invalid-input', `quantity must be "mass" or "height" (got "${String(quantity)}").`, 'quantity');
+  }
+  checkRuns('reference', ref, quantity);
+  checkRuns('test', test, quantity);
   const warnings: ModelWarning[] = [];
 
-  const cValues = ref.slopes.map((k) => (k * ref.viscosity) / (ref.density ** 2 * ref.surfaceTension));
+  // ρ² appears in the mass form only (m = ρ ε A h).
+  const rho2 = (runs: LiquidRuns): number => (quantity === 'mass' ? (runs.density as number) ** 2 : 1);
+  const cValues = ref.slopes.map((k) => (k * ref.viscosity) / (rho2(ref) * ref.surfaceTension));
   const c = spread(cValues);
-  const cosValues = test.slopes.map((k) => (k * test.viscosity) / (c.mean * test.density ** 2 * test.surfaceTension));
+  const cosValues = test.slopes.map((k) => (k * test.viscosity) / (c.mean * rho2(test) * test.surfaceTension));
   const cos = spread(cosValues);
   const k = spread(test.slopes);
   const relK = k.n > 0 && k.mean > 0 ? k.sd / k.mean : 0;

@@ -37,4 +37,22 @@ export {
   type Series,
   type TimeToHeightError,
 } from './metrics';
+export {
+  analyseLabRun,
+  DEFAULT_FIT_SETTINGS,
+  type FitFailure,
+  type FitSettings,
+  type FitWindow,
+  labRunFigures,
+  type LabRunFitInput,
+  labRunWashburnFit,
+  REPLICATE_FIGURES,
+  type ReplicateFigure,
+  type ReplicateFigureKey,
+  replicateFigures,
+  type RunAnalysis,
+  type RunFigures,
+  type WireGravityFit,
+  type WireWashburnFit,
+} from './lab-run';
 export { fittingModels } from './models';
