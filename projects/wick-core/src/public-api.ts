@@ -24,3 +24,5 @@ export * from './tolerance';
 export * from './fitting';
 export * from './stack';
 export * from './api/library';
+export * from './design';
+export * from './api/lab-data';

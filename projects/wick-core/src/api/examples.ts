@@ -82,5 +82,23 @@ export const MODEL_EXAMPLES: Readonly<Record<string, Readonly<Record<string, unk
     liquid: { density: 1000, viscosity: 1e-3 },
     pressures: [0, 500, 1000, 2000, 4000],
   },
+  'design-variant': {
+    variant: {
+      configuration: 'vertical-strip',
+      structure: {
+        linearDensity: 6.7e-7,
+        fibreDensity: 1390,
+        basisWeight: 0.05,
+        thickness: 0.0012,
+        contactAngle: 0.96,
+        permeability: { mode: 'correlation', correlation: 'tomadakis-robertson-2d-in-plane' },
+      },
+      liquid: { ref: 'saline-0.9', temperature: 296.15 },
+      dimensions: { width: 0.025, duration: 600 },
+      checkpoints: { heights: [0.01, 0.02], times: [10, 60, 600] },
+      tolerances: { basisWeight: { kind: 'normal', sd: 0.0025, lower: 0 } },
+    },
+    curvePoints: 100,
+    samples: 200,
+  },
 };
-

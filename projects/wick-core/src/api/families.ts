@@ -12,6 +12,7 @@ import { poreSizeModels } from '../pore-size/models';
 import { toleranceModels } from '../tolerance/models';
 import { fittingModels } from '../fitting/models';
 import { stackModels } from '../stack/models';
+import { designModels } from '../design/models';
 
 export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]> = [
   unitsModels,
@@ -26,4 +27,5 @@ export const MODEL_FAMILIES: ReadonlyArray<readonly ModelSpec<never, unknown>[]>
   toleranceModels,
   fittingModels,
   stackModels,
+  designModels,
 ];

@@ -21,9 +21,9 @@ export const routes: Routes = [
   { path: '', pathMatch: 'full', title: 'Wickwright', loadComponent: () => import('./features/home/home').then((m) => m.Home) },
   { path: 'materials', ...guarded('library:read'), data: { title: 'Materials library' }, loadChildren: () => import('./features/materials/materials.routes').then((m) => m.MATERIALS_ROUTES) },
   { path: 'liquids', ...guarded('library:read'), data: { title: 'Test liquids' }, loadChildren: () => import('./features/liquids/liquids.routes').then((m) => m.LIQUIDS_ROUTES) },
-  { path: 'designs', ...guarded('designs:read'), ...planned('Designs', 'Interactive wicking estimates for a layer arrive with the design workspace.') },
-  { path: 'compare', ...guarded('designs:read'), ...planned('Compare & decide', 'Side-by-side variants and decision records arrive with the design workspace.') },
-  { path: 'lab-data', ...guarded('labdata:read'), ...planned('Lab data', 'Uploading and fitting measured wicking curves arrives with the lab-data feature.') },
+  { path: 'designs', ...guarded('designs:read'), data: { title: 'Designs' }, loadChildren: () => import('./features/designs/designs.routes').then((m) => m.DESIGNS_ROUTES) },
+  { path: 'compare', ...guarded('designs:read'), data: { title: 'Compare & decide' }, loadChildren: () => import('./features/compare/compare.routes').then((m) => m.COMPARE_ROUTES) },
+  { path: 'lab-data', ...guarded('labdata:read'), data: { title: 'Lab data' }, loadChildren: () => import('./features/lab-data/lab-data.routes').then((m) => m.LAB_DATA_ROUTES) },
   {
     path: 'reviews',
     ...guarded('library:review'),

@@ -1,0 +1,31 @@
+import type { Routes } from '@angular/router';
+import { roleGuard } from '../../core/auth/role-guard';
+
+/** The design workspace, every page lazy: projects, a project, the variant editor and the printable report. */
+export const DESIGNS_ROUTES: Routes = [
+  { path: '', title: 'Designs · Wickwright', loadComponent: () => import('./project-list').then((m) => m.ProjectList) },
+  {
+    path: 'projects/:projectId',
+    title: 'Project · Wickwright',
+    loadComponent: () => import('./project-page').then((m) => m.ProjectPage),
+  },
+  {
+    path: ':designId/new',
+    title: 'New variant · Wickwright',
+    canActivate: [roleGuard('designs:edit')],
+    data: { title: 'New variant' },
+    loadComponent: () => import('./variant-editor').then((m) => m.VariantEditor),
+  },
+  {
+    path: 'variants/:variantId',
+    title: 'Variant · Wickwright',
+    loadComponent: () => import('./variant-editor').then((m) => m.VariantEditor),
+  },
+  {
+    path: 'variants/:variantId/report',
+    title: 'Variant report · Wickwright',
+    canActivate: [roleGuard('designs:export')],
+    data: { title: 'Variant report' },
+    loadComponent: () => import('./variant-report').then((m) => m.VariantReportPage),
+  },
+];

@@ -1,0 +1,47 @@
+import { formatQuantity, type KeyFigure } from 'wick-core';
+
+/** Display units for result values by SI unit: what an absorbent-product engineer reads them in. */
+const DISPLAY: Readonly<Record<string, string>> = {
+  m: 'mm',
+  s: 's',
+  Pa: 'Pa',
+  'm^2': 'um^2',
+  kg: 'g',
+  'kg/s': 'g/s',
+  'kg/m^2': 'g/m^2',
+  'kg/kg': 'g/g',
+  '1': '1',
+  'N/m': 'mN/m',
+  'Pa s': 'mPa s',
+  'kg/m^3': 'kg/m^3',
+  K: 'degC',
+};
+
+/** An SI value as text in its display unit ('—' for null). Radii below a micrometre read in nm. */
+export function show(si: number | null | undefined, siUnit: string, significant = 4): string {
+  if (si === null || si === undefined || !Number.isFinite(si)) return '—';
+  let unit = DISPLAY[siUnit] ?? siUnit;
+  if (siUnit === 'm' && si !== 0 && Math.abs(si) < 1e-6) unit = 'nm';
+  if (unit === '1') return Number(si.toPrecision(significant)).toString();
+  try {
+    return formatQuantity(si, unit, significant);
+  } catch {
+    return `${Number(si.toPrecision(significant))} ${siUnit}`;
+  }
+}
+
+export function showFigure(f: Pick<KeyFigure, 'value' | 'unit'>): string {
+  return show(f.value, f.unit);
+}
+
+/** A relative change as a signed percentage. */
+export function showRelative(r: number | null): string {
+  if (r === null || !Number.isFinite(r)) return '';
+  const pct = r * 100;
+  return `${pct > 0 ? '+' : pct < 0 ? '−' : '±'}${Math.abs(pct).toPrecision(pct === 0 ? 1 : 2)} %`;
+}
+
+/** A row of an input table: numbers in their display unit, text as it is. */
+export function showInputValue(v: number | string, siUnit: string): string {
+  return typeof v === 'number' ? show(v, siUnit, 5) : v;
+}
