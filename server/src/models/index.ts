@@ -67,30 +67,3 @@ export function designModels(sequelize: Sequelize): DesignModels {
   boundDesigns.set(sequelize, models);
   return models;
 }
-
-// ── Lab data: replicate sets and measured runs (issue 7) ─────────────────────────────────────────────────────
-import { type LabRun, initLabRun } from './lab-run';
-import { type LabSet, initLabSet } from './lab-set';
-
-export { LabRun } from './lab-run';
-export { LabSet } from './lab-set';
-
-export interface LabModels {
-  readonly LabSet: ModelStatic<LabSet>;
-  readonly LabRun: ModelStatic<LabRun>;
-  readonly User: ModelStatic<User>;
-}
-
-const boundLab = new WeakMap<Sequelize, LabModels>();
-
-/** The lab-data models bound to one Sequelize instance, with their associations. */
-export function labModels(sequelize: Sequelize): LabModels {
-  const hit = boundLab.get(sequelize);
-  if (hit) return hit;
-  const { User: BoundUser } = authModels(sequelize);
-  const models: LabModels = { LabSet: initLabSet(sequelize), LabRun: initLabRun(sequelize), User: BoundUser };
-  models.LabSet.hasMany(models.LabRun, { foreignKey: 'setId', as: 'runs' });
-  models.LabRun.belongsTo(models.LabSet, { foreignKey: 'setId', as: 'labSet' });
-  boundLab.set(sequelize, models);
-  return models;
-}
