@@ -77,7 +77,9 @@ describe('sign-in through the demo identity provider', () => {
     await page.waitForURL('**/interaction/**');
     await submitProviderLogin(page, demoAccount('priya'));
     expect(new URL(page.url()).pathname).toBe('/lab-data');
-    expect(await page.locator('h1').innerText()).toBe('Lab data');
+    // The area's lazy page renders after the user menu: wait for it rather than read a half-drawn heading.
+    await page.locator('h1', { hasText: 'Lab data' }).waitFor();
+    expect(await page.locator('wick-sign-in-page').count()).toBe(0);
     await context.close();
   }, JOURNEY_MS);
 
