@@ -252,7 +252,8 @@ export type LiquidPropertyGroup = FormGroup<{
 }>;
 
 function tableRow(fb: NonNullableFormBuilder, t: number | null, v: number | null): TableRowGroup {
-  return fb.group({ temperature: fb.control<number | null>(t, Validators.required), value: fb.control<number | null>(v, [Validators.required, Validators.min(0)]) });
+  // Filled-in cells are checked by the property's validator, and only while it is a table.
+  return fb.group({ temperature: fb.control<number | null>(t), value: fb.control<number | null>(v, Validators.min(0)) });
 }
 
 export function addTableRow(fb: NonNullableFormBuilder, g: LiquidPropertyGroup): void {

@@ -20,7 +20,7 @@ import { errorText } from './form-errors';
         <input matInput formControlName="polymer" required placeholder="polypropylene, PET, viscose, fluff pulp …" />
         <mat-error>{{ errorText(form().controls.polymer.errors) }}</mat-error>
       </mat-form-field>
-      <wick-property-field [group]="form().controls.density" dimension="density" label="Fibre density" [required]="true" defaultUnit="g/cm^3" />
+      <wick-property-field [group]="form().controls.density" dimension="density" label="Fibre density" defaultUnit="g/cm^3" />
       <wick-property-field [group]="form().controls.linearDensity" dimension="linearDensity" label="Linear density" />
       <wick-property-field [group]="form().controls.diameter" dimension="length" label="Diameter" />
       @if (form().errors?.['sizeRequired'] && form().touched) {
@@ -46,7 +46,7 @@ import { errorText } from './form-errors';
           <button mat-icon-button type="button" (click)="form().controls.contactAngles.removeAt(i)" [attr.aria-label]="'Remove contact angle ' + (i + 1)">
             <mat-icon>delete</mat-icon>
           </button>
-          <wick-property-field [group]="a.controls.angle" dimension="angle" label="Contact angle" [required]="true" defaultUnit="deg" />
+          <wick-property-field [group]="a.controls.angle" dimension="angle" label="Contact angle" defaultUnit="deg" />
         </div>
       }
       <button mat-stroked-button type="button" (click)="form().controls.contactAngles.push(newAngle())"><mat-icon>add</mat-icon>Add a contact angle</button>

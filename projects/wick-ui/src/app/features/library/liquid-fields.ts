@@ -41,8 +41,8 @@ import { PropertyField } from './property-field';
             </mat-button-toggle-group>
           </div>
           @if (p.group.controls.mode.value === 'constant') {
-            <wick-property-field [group]="p.group.controls.value" [dimension]="p.dimension" [label]="p.label" [required]="true" />
-            <wick-unit-input formControlName="temperature" dimension="temperature" label="At temperature" [required]="true" defaultUnit="degC" />
+            <wick-property-field [group]="p.group.controls.value" [dimension]="p.dimension" [label]="p.label" />
+            <wick-unit-input formControlName="temperature" dimension="temperature" label="At temperature" defaultUnit="degC" />
           } @else {
             <div class="table-head">
               <mat-form-field subscriptSizing="dynamic">

@@ -53,7 +53,7 @@ export function toPropertyValue(g: PropertyGroup): PropertyValue | undefined {
   template: `
     <fieldset [formGroup]="group()">
       <legend class="visually-hidden">{{ label() }}</legend>
-      <wick-unit-input class="main" formControlName="value" [dimension]="dimension()" [label]="label()" [required]="required()" [defaultUnit]="defaultUnit()" />
+      <wick-unit-input class="main" formControlName="value" [dimension]="dimension()" [label]="label()" [defaultUnit]="defaultUnit()" />
       <mat-form-field class="source" subscriptSizing="dynamic">
         <mat-label>Source</mat-label>
         <mat-select formControlName="source" [aria-label]="label() + ' source'">
@@ -104,7 +104,6 @@ export class PropertyField {
   readonly group = input.required<PropertyGroup>();
   readonly dimension = input.required<Dimension>();
   readonly label = input.required<string>();
-  readonly required = input(false);
   readonly defaultUnit = input<string | null>(null);
   protected readonly sources = PROPERTY_SOURCES;
   protected readonly sourceLabels = PROPERTY_SOURCE_LABELS;

@@ -72,7 +72,7 @@ import { PropertyField } from './property-field';
       <button mat-stroked-button type="button" class="add" (click)="addPart()"><mat-icon>add</mat-icon>Add a fibre</button>
 
       <h3>Structure</h3>
-      <wick-property-field [group]="form().controls.basisWeight" dimension="basisWeight" label="Basis weight" [required]="true" />
+      <wick-property-field [group]="form().controls.basisWeight" dimension="basisWeight" label="Basis weight" />
       <wick-property-field [group]="form().controls.thickness" dimension="length" label="Thickness" defaultUnit="mm" />
       <wick-property-field [group]="form().controls.thicknessPressure" dimension="pressure" label="Thickness measured under" defaultUnit="kPa" />
       <mat-radio-group formControlName="porosityMode" aria-label="Porosity" class="mode">
@@ -80,7 +80,7 @@ import { PropertyField } from './property-field';
         <mat-radio-button value="measured">Measured porosity</mat-radio-button>
       </mat-radio-group>
       @if (form().controls.porosityMode.value === 'measured') {
-        <wick-property-field [group]="form().controls.porosity" dimension="fraction" label="Porosity" [required]="true" defaultUnit="%" />
+        <wick-property-field [group]="form().controls.porosity" dimension="fraction" label="Porosity" defaultUnit="%" />
       }
       <wick-property-field [group]="form().controls.meanFlowPoreSize" dimension="length" label="Mean-flow pore size" />
       @if (form().errors && form().touched) {
@@ -109,7 +109,7 @@ import { PropertyField } from './property-field';
             </mat-form-field>
           }
           @if (p.group.controls.mode.value === 'measured') {
-            <wick-property-field [group]="p.group.controls.value" dimension="permeability" [label]="p.label" [required]="true" defaultUnit="darcy" />
+            <wick-property-field [group]="p.group.controls.value" dimension="permeability" [label]="p.label" defaultUnit="darcy" />
           }
         </div>
       }
@@ -117,7 +117,7 @@ import { PropertyField } from './property-field';
       <mat-checkbox formControlName="hasSap">Contains superabsorbent</mat-checkbox>
       @if (form().controls.hasSap.value) {
         <div [formGroup]="form().controls.sap" class="sap">
-          <wick-property-field [group]="form().controls.sap.controls.content" dimension="fraction" label="Superabsorbent content" [required]="true" defaultUnit="%" />
+          <wick-property-field [group]="form().controls.sap.controls.content" dimension="fraction" label="Superabsorbent content" defaultUnit="%" />
           <wick-property-field [group]="form().controls.sap.controls.freeSwellCapacity" dimension="massPerMass" label="Free swell capacity" />
           <wick-property-field [group]="form().controls.sap.controls.centrifugeRetentionCapacity" dimension="massPerMass" label="Centrifuge retention capacity" />
           <wick-property-field [group]="form().controls.sap.controls.absorbencyUnderLoad" dimension="massPerMass" label="Absorbency under load" />

@@ -26,6 +26,9 @@ import { kindOfCollection } from '../library/library-format';
         }
       </header>
       <p class="lead">Reviewed fibre and web data. Engineers rely on approved revisions; drafts and entries in review are shown with their state.</p>
+      @if (imported()) {
+        <p class="notice" role="status">Imported {{ imported() }} web(s) as drafts: open each to check and submit it.</p>
+      }
       <nav mat-tab-nav-bar [tabPanel]="panel" aria-label="Kinds of material">
         <a mat-tab-link routerLink="/materials/webs" [active]="kind() === 'web'">Webs</a>
         <a mat-tab-link routerLink="/materials/fibres" [active]="kind() === 'fibre'">Fibres</a>
@@ -60,6 +63,11 @@ import { kindOfCollection } from '../library/library-format';
     .lead {
       color: var(--mat-sys-on-surface-variant);
     }
+    .notice {
+      padding: 8px 12px;
+      border-radius: var(--mat-sys-corner-small);
+      background: var(--mat-sys-surface-container);
+    }
     mat-tab-nav-panel {
       display: block;
       padding-top: 16px;
@@ -70,5 +78,7 @@ export class Materials {
   protected readonly auth = inject(AuthStore);
   /** Route parameter: `fibres` or `webs`. */
   readonly collection = input<string>('webs');
+  /** Query parameter set after a bulk import: how many webs it created. */
+  readonly imported = input<string | undefined>(undefined);
   protected readonly kind = computed(() => (kindOfCollection(this.collection()) === 'fibre' ? 'fibre' : 'web'));
 }

@@ -10,7 +10,7 @@ import { type Quantity, UnitInput } from './unit-input';
 
 @Component({
   imports: [ReactiveFormsModule, UnitInput],
-  template: `<form [formGroup]="form"><wick-unit-input formControlName="bw" dimension="basisWeight" label="Basis weight" [required]="true" /></form>`,
+  template: `<form [formGroup]="form"><wick-unit-input formControlName="bw" dimension="basisWeight" label="Basis weight" /></form>`,
 })
 class Host {
   private readonly fb = inject(NonNullableFormBuilder);

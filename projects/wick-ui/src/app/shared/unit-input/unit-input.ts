@@ -11,7 +11,7 @@ import {
   viewChild,
 } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { type AbstractControl, type ControlValueAccessor, NgControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
+import { type AbstractControl, type ControlValueAccessor, NgControl, type ValidationErrors, type ValidatorFn, Validators } from '@angular/forms';
 import type { ErrorStateMatcher } from '@angular/material/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInput, MatInputModule } from '@angular/material/input';
@@ -60,6 +60,8 @@ export function quantityErrorMessage(errors: ValidationErrors | null | undefined
  * the unit for showing it back as typed. Changing the unit converts the number shown; the quantity stays.
  *
  * Use it with a form control: `<wick-unit-input dimension="basisWeight" label="Basis weight" formControlName="basisWeight" />`.
+ * Put `Validators.required` on the control to make it required (no `required` attribute: Angular's
+ * RequiredValidator would attach itself to the control and outlive this element).
  */
 @Component({
   selector: 'wick-unit-input',
@@ -75,7 +77,7 @@ export function quantityErrorMessage(errors: ValidationErrors | null | undefined
         autocomplete="off"
         [value]="text()"
         [disabled]="disabled()"
-        [required]="required()"
+        [required]="requiredShown()"
         [placeholder]="placeholder()"
         [errorStateMatcher]="matcher"
         (input)="typed($any($event.target).value)"
@@ -122,7 +124,6 @@ export class UnitInput implements ControlValueAccessor, AfterContentInit, DoChec
   readonly label = input('');
   readonly hint = input('');
   readonly placeholder = input('');
-  readonly required = input(false);
   /** Unit offered first when the control is empty; else the dimension's usual unit. */
   readonly defaultUnit = input<string | null>(null);
   readonly subscriptSizing = input<'fixed' | 'dynamic'>('dynamic');
@@ -132,6 +133,8 @@ export class UnitInput implements ControlValueAccessor, AfterContentInit, DoChec
   private readonly chosenUnit = signal<string | null>(null);
   protected readonly disabled = signal(false);
   protected readonly error = signal('');
+  /** Marked required when the control has `Validators.required` (as Material does for its own inputs). */
+  protected readonly requiredShown = signal(false);
   private readonly invalidShown = signal(false);
   /** The SI value behind the text (null when empty or not a number). */
   private si: number | null = null;
@@ -165,12 +168,18 @@ export class UnitInput implements ControlValueAccessor, AfterContentInit, DoChec
     if (!control) return;
     control.addValidators(this.parseValidator);
     control.updateValueAndValidity({ emitEvent: false });
+    // A control may outlive this element (a field shown only in one mode): take the parse check away with it.
+    this.destroyRef.onDestroy(() => {
+      control.removeValidators(this.parseValidator);
+      control.updateValueAndValidity({ emitEvent: false });
+    });
     this.refreshError(control);
     control.events.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => this.refreshError(control));
   }
 
   /** The inner input has no form control of its own: Material does not re-evaluate its error state by itself. */
   private refreshError(control: AbstractControl): void {
+    this.requiredShown.set(control.hasValidator(Validators.required));
     this.invalidShown.set(control.invalid && (control.touched || control.dirty));
     this.error.set(quantityErrorMessage(control.errors));
     this.matInput()?.updateErrorState();
