@@ -82,12 +82,13 @@ export function describeInputs(inputs: VariantInputs, results?: VariantResults):
     if (!tol) continue;
     const label = TOLERANCE_FIELDS[name as keyof typeof TOLERANCE_FIELDS]?.label ?? name;
     const unit = SI_UNIT[TOLERANCE_FIELDS[name as keyof typeof TOLERANCE_FIELDS]?.dimension ?? 'dimensionless'];
+    const n = (x: number) => String(Number(x.toPrecision(6)));
     const text =
       tol.kind === 'normal'
-        ? `normal, sd ${tol.sd}${tol.mean !== undefined ? `, mean ${tol.mean}` : ''}`
+        ? `normal, sd ${n(tol.sd)}${tol.mean !== undefined ? `, mean ${n(tol.mean)}` : ''}`
         : tol.kind === 'uniform'
-          ? `uniform ${tol.min} … ${tol.max}`
-          : `triangular ${tol.min} … ${tol.max}${tol.mode !== undefined ? `, mode ${tol.mode}` : ''}`;
+          ? `uniform ${n(tol.min)} … ${n(tol.max)}`
+          : `triangular ${n(tol.min)} … ${n(tol.max)}${tol.mode !== undefined ? `, mode ${n(tol.mode)}` : ''}`;
     rows.push({ path: `tolerances.${name}`, label: `Tolerance: ${label}`, value: text, unit, source: 'entered for this variant' });
   }
   return rows;

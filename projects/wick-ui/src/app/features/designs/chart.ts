@@ -74,10 +74,11 @@ export class Chart {
       .filter((t) => t['showlegend'] !== false && typeof t['name'] === 'string')
       .map((t) => {
         const line = (t['line'] ?? {}) as { color?: string; dash?: string; width?: number };
-        const marker = (t['marker'] ?? {}) as { color?: string };
+        const marker = (t['marker'] ?? {}) as { color?: string | string[] };
+        const markerColor = Array.isArray(marker.color) ? marker.color[0] : marker.color;
         const dash = line.dash === 'dash' ? 'dashed' : line.dash === 'dot' ? 'dotted' : 'solid';
         const fill = typeof t['fillcolor'] === 'string' ? (t['fillcolor'] as string) : 'transparent';
-        return { name: t['name'] as string, color: line.color ?? marker.color ?? 'currentColor', dash, fill };
+        return { name: t['name'] as string, color: line.color ?? markerColor ?? 'currentColor', dash, fill };
       }),
   );
 

@@ -38,7 +38,9 @@ export function showFigure(f: Pick<KeyFigure, 'value' | 'unit'>): string {
 export function showRelative(r: number | null): string {
   if (r === null || !Number.isFinite(r)) return '';
   const pct = r * 100;
-  return `${pct > 0 ? '+' : pct < 0 ? '−' : '±'}${Math.abs(pct).toPrecision(pct === 0 ? 1 : 2)} %`;
+  const size = Math.abs(pct);
+  const digits = size === 0 ? '0' : size >= 100 ? Math.round(size).toLocaleString('en-GB') : String(Number(size.toPrecision(2)));
+  return `${pct > 0 ? '+' : pct < 0 ? '−' : '±'}${digits} %`;
 }
 
 /** A row of an input table: numbers in their display unit, text as it is. */

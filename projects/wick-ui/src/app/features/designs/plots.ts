@@ -58,14 +58,20 @@ export function niceCeil(x: number): number {
   return 10 * p;
 }
 
-export function uptakeLayout(r: VariantResultsOk): PlotLayout {
+export function uptakeLayout(r: VariantResultsOk, timeAxis: 'linear' | 'log' = 'linear'): PlotLayout {
   const radial = r.configuration === 'radial-spread';
   const eq = r.equilibriumLength;
+  const t = r.curves.time;
   // Fixed, rounded ranges: no autorange pass and the same ticks between keystrokes (plotly re-measures new labels).
-  const top = Math.max(...r.curves.heightNoGravity, ...(r.bands ? r.bands.curve.p90 : []), eq ?? 0) * 1000;
+  // The scale follows the curve with gravity and its band; the gravity-free curve may run off the top.
+  const top = Math.max(...r.curves.height, ...(r.bands ? r.bands.curve.p90 : []), eq ?? 0) * 1000;
+  const tEnd = t[t.length - 1];
   return {
-    xaxis: { title: { text: 'Time (s)' }, zeroline: false, range: [0, r.curves.time[r.curves.time.length - 1]] },
-    yaxis: { title: { text: radial ? 'Wetted radius (mm)' : 'Wetted length (mm)' }, range: [0, niceCeil(top * 1.05)] },
+    xaxis:
+      timeAxis === 'log'
+        ? { title: { text: 'Time (s, log)' }, type: 'log', range: [Math.log10(Math.max(t[1], tEnd * 1e-6)), Math.log10(tEnd)] }
+        : { title: { text: 'Time (s)' }, zeroline: false, range: [0, tEnd] },
+    yaxis: { title: { text: radial ? 'Wetted radius (mm)' : 'Wetted length (mm)' }, range: [0, niceCeil(top * 1.15)] },
     shapes:
       eq === null
         ? []

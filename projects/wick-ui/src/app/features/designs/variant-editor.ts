@@ -149,9 +149,11 @@ export class VariantEditor {
     const l = this.live();
     return l?.kind === 'results' && l.results.status === 'ok' ? l.results : null;
   });
+  /** Time axis of the main chart: early rise reads better on a log axis. */
+  protected readonly timeAxis = signal<'linear' | 'log'>('linear');
   protected readonly uptakePlot = computed(() => {
     const r = this.ok();
-    return r ? { data: uptakeTraces(r), layout: uptakeLayout(r) } : null;
+    return r ? { data: uptakeTraces(r), layout: uptakeLayout(r, this.timeAxis()) } : null;
   });
   protected readonly massPlot = computed(() => {
     const r = this.ok();
