@@ -47,6 +47,8 @@ describe('design workspace in a real browser', () => {
     const consoleErrors: string[] = [];
     page.on('console', (m) => m.type() === 'error' && consoleErrors.push(m.text()));
     await signIn(page, 'priya', '/designs');
+    await page.getByRole('link', { name: new RegExp(DEMO_PROJECT.replace(/[()]/g, '.')) }).first().waitFor();
+    await screenshot(page, 'designs-projects');
     await page.getByRole('link', { name: new RegExp(DEMO_PROJECT.replace(/[()]/g, '.')) }).first().click();
     await page.waitForURL('**/designs/projects/*');
     await page.locator('mat-card', { hasText: 'Acquisition layer options' }).locator('[data-testid="variant-row-1"], tr').first().waitFor();

@@ -144,6 +144,13 @@ export function percentileBands<K extends string>(
   const col = new Float64Array(n);
   for (let i = 0; i < m; i++) {
     const row = i * samples;
+    if (i > 0 && sameRow(store, row, row - samples, n)) {
+      // Every sample unchanged since the last point (a levelled-off curve): same percentiles, no sorting.
+      p10[i] = p10[i - 1];
+      p50[i] = p50[i - 1];
+      p90[i] = p90[i - 1];
+      continue;
+    }
     for (let k = 0; k < n; k++) col[k] = store[row + perm[k]];
     if (!insertionSortWith(col, perm, n, SHIFT_BUDGET * n)) {
       // Curves crossing en masse: sort this point from scratch instead.
@@ -172,6 +179,12 @@ export function percentileBands<K extends string>(
     failures: firstMessage === undefined ? { count: failed } : { count: failed, firstMessage },
     warnings,
   };
+}
+
+/** Whether the n values starting at `a` equal those starting at `b` (stops at the first difference). */
+function sameRow(store: Float64Array, a: number, b: number, n: number): boolean {
+  for (let k = 0; k < n; k++) if (store[a + k] !== store[b + k]) return false;
+  return true;
 }
 
 /** Element moves allowed per sample before a point is sorted from scratch. */
