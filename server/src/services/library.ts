@@ -544,7 +544,7 @@ export async function updateEntry(
 export async function submitEntry(ctx: LibraryContext, kind: LibraryKind, id: number, version: number, user: SessionUser): Promise<EntryDetail> {
   const entry = await withLockedEntry(ctx, kind, id, version, user, async ({ entry, head, t }) => {
     if (head.state !== 'draft' && head.state !== 'returned') throw stateError(head, 'submitted');
-    head.set({ state: 'in-review', submittedBy: user.id, submittedAt: new Date(), reviewedBy: null, reviewedAt: null, updatedBy: head.updatedBy });
+    head.set({ state: 'in-review', submittedBy: user.id, submittedAt: new Date(), reviewedBy: null, reviewedAt: null });
     await head.save({ transaction: t });
     await bump(entry, t);
     await audit(t, { actorId: user.id, action: 'submit', entityType: 'library-entry', entityId: entry.id, details: { kind, name: head.name, revision: head.number } });

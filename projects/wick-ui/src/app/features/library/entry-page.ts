@@ -293,7 +293,8 @@ export class EntryPage {
     (this.web()?.curves ?? []).map((c) => ({
       name: c.name,
       x: [...c.times],
-      y: c.values.map((v) => (c.measurement === 'height' ? v * 1000 : v * 1000)),
+      // m → mm for heights, kg → g for masses.
+      y: c.values.map((v) => v * 1000),
       mode: 'lines+markers',
     })),
   );

@@ -10,10 +10,12 @@ import { apiProblem } from './api-error';
 import { LibraryApi } from './library-api';
 import { stateLabel, when } from './library-format';
 
+/** A changed value as text; SI numbers lose their binary noise (0.0010500000000000002 → 0.00105). */
 function shown(v: unknown): string {
   if (v === undefined) return '—';
   if (typeof v === 'string') return v;
-  return JSON.stringify(v);
+  if (typeof v === 'number') return String(Number(v.toPrecision(10)));
+  return JSON.stringify(v, (_k, x: unknown) => (typeof x === 'number' ? Number(x.toPrecision(10)) : x));
 }
 
 /** Every revision of an entry with who did what and when, and what changed between any two. */
