@@ -8,7 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import type { EvaluateVariantOptions, PinnedMaterial, VariantConfiguration, VariantInputs, VariantResults } from 'wick-core';
+import type { AnyVariantConfiguration, AnyVariantInputs, AnyVariantOptions, AnyVariantResults, PinnedMaterial } from 'wick-core';
 import type { Design } from './design';
 
 /**
@@ -20,10 +20,11 @@ export class Variant extends Model<InferAttributes<Variant>, InferCreationAttrib
   declare designId: number;
   declare name: string;
   declare notes: CreationOptional<string>;
-  declare configuration: VariantConfiguration;
-  declare inputs: VariantInputs;
-  declare options: Required<EvaluateVariantOptions>;
-  declare results: VariantResults;
+  /** A single-layer configuration or 'stack'. */
+  declare configuration: AnyVariantConfiguration;
+  declare inputs: AnyVariantInputs;
+  declare options: AnyVariantOptions;
+  declare results: AnyVariantResults;
   declare coreVersion: string;
   /** Pinned library revisions as saved (state at save time). */
   declare materials: CreationOptional<PinnedMaterial[]>;

@@ -3,6 +3,8 @@
  * marked, curves to overlay) and the decision taken on it, written to the audit log in the same transaction.
  */
 import {
+  anyKeyFigures,
+  isStackResults,
   COMPARE_MAX,
   COMPARE_MIN,
   compareKeyFigures,
@@ -55,16 +57,19 @@ export async function compareVariants(ctx: DesignsContext, ids: readonly number[
       designName: v.design?.name ?? '',
       projectId: v.design?.projectId ?? 0,
       projectName: v.design?.project?.name ?? '',
-      configuration: v.configuration,
+      // 'stack' joins the wire type's configurations when CompareVariant is widened.
+      configuration: v.configuration as CompareVariant['configuration'],
       status: r.status,
       usesUnapproved: materials.some((m) => !m.approved),
       materials,
-      curve: r.status === 'ok' ? { time: r.curves.time, height: r.curves.height } : null,
+      // The overlay plots wetted length against time; a stack has no such curve (its figures compare instead).
+      curve: !isStackResults(r) && r.status === 'ok' ? { time: r.curves.time, height: r.curves.height } : null,
     };
   });
   const figures = compareKeyFigures(
     rows.map((v) => ({ id: v.id, results: v.results })),
     baseline,
+    anyKeyFigures,
   );
   const projectIds = [...new Set(variants.map((v) => v.projectId))];
   const decisions = projectIds.length === 1 ? await projectDecisions(ctx, projectIds[0]) : [];

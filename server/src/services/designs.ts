@@ -6,11 +6,14 @@
  */
 import { Op, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import {
-  DEFAULT_VARIANT_OPTIONS,
-  evaluateVariant,
-  keyFigures,
+  anyKeyFigures,
+  evaluateAnyVariant,
+  isStackInputs,
+  isStackResults,
   liquidFromLibrary,
-  readVariantInputs,
+  pinnedMaterials,
+  readAnyVariantInputs,
+  stackLayerFromLibrary,
   structureFromLibrary,
   WICK_CORE_VERSION,
   type DecisionRecord,
@@ -27,6 +30,8 @@ import {
   type ProjectSummary,
   type ProjectWrite,
   type RerunRequest,
+  type AnyVariantInputs,
+  type StackVariantInputs,
   type VariantDetail,
   type VariantInputs,
   type VariantSummary,
@@ -58,12 +63,9 @@ function conflictOnName<T>(what: string, name: string): (e: unknown) => T {
 
 // ── library lookups ───────────────────────────────────────────────────────────────────────────────────────────
 
-/** The library revisions a variant's inputs pin (web, liquid). */
-export function pinnedOf(inputs: VariantInputs): PinnedMaterial[] {
-  const out: PinnedMaterial[] = [];
-  if (inputs.structure?.web) out.push(inputs.structure.web);
-  if (inputs.liquid.pinned) out.push(inputs.liquid.pinned);
-  return out;
+/** The library revisions a variant's inputs pin (the web of the layer or of each stack layer, the liquid). */
+export function pinnedOf(inputs: AnyVariantInputs): PinnedMaterial[] {
+  return pinnedMaterials(inputs);
 }
 
 /** What the library says now about each pinned revision (one query per table for any number of variants). */
@@ -97,7 +99,7 @@ export async function materialStatuses(
   return out;
 }
 
-function statusesFor(inputs: VariantInputs, all: Map<string, MaterialStatus>): MaterialStatus[] {
+function statusesFor(inputs: AnyVariantInputs, all: Map<string, MaterialStatus>): MaterialStatus[] {
   return pinnedOf(inputs).map(
     (p) => all.get(`${p.id}#${p.revision}`) ?? { ...p, approved: false, newerApprovedRevision: null, found: false },
   );
@@ -107,8 +109,8 @@ function statusesFor(inputs: VariantInputs, all: Map<string, MaterialStatus>): M
  * Checks inputs with wick-core, then replaces each pin's state and name with the library's (the client's copy is
  * not trusted). A pin to a revision that does not exist is refused.
  */
-async function checkedInputs(sequelize: Sequelize, raw: unknown, tx: Transaction): Promise<VariantInputs> {
-  const inputs = readVariantInputs(raw);
+async function checkedInputs(sequelize: Sequelize, raw: unknown, tx: Transaction): Promise<AnyVariantInputs> {
+  const inputs = readAnyVariantInputs(raw);
   const pins = pinnedOf(inputs);
   if (pins.length === 0) return inputs;
   const statuses = await materialStatuses(sequelize, pins, tx);
@@ -120,8 +122,18 @@ async function checkedInputs(sequelize: Sequelize, raw: unknown, tx: Transaction
     }
     return { kind: p.kind, id: p.id, revision: p.revision, name: s.name, state: s.state };
   };
-  const web = fix(inputs.structure?.web, 'structure.web');
   const liquidPin = fix(inputs.liquid.pinned, 'liquid.pinned');
+  if (isStackInputs(inputs)) {
+    return {
+      ...inputs,
+      layers: inputs.layers.map((l, j) => {
+        const web = fix(l.structure.web, `layers[${j}].structure.web`);
+        return web ? { ...l, structure: { ...l.structure, web } } : l;
+      }),
+      liquid: { ...inputs.liquid, ...(liquidPin ? { pinned: liquidPin } : {}) },
+    };
+  }
+  const web = fix(inputs.structure?.web, 'structure.web');
   return {
     ...inputs,
     ...(inputs.structure ? { structure: { ...inputs.structure, ...(web ? { web } : {}) } } : {}),
@@ -141,10 +153,18 @@ const person = (map: Map<number, PersonRef>, id: number): PersonRef => map.get(i
 
 // ── variants ──────────────────────────────────────────────────────────────────────────────────────────────────
 
-/** Headline figures for lists: equilibrium height, the last reading, capacity per mass. */
+/**
+ * Headline figures for lists: equilibrium height, the last reading, capacity per mass; for a stack the first
+ * gush's acquisition time, the rewet indicator and the capacity used.
+ */
 function headline(v: Variant) {
-  const figs = keyFigures(v.results);
-  const last = v.results.status === 'ok' ? v.results.atTimes[v.results.atTimes.length - 1] : undefined;
+  const r = v.results;
+  const figs = anyKeyFigures(r);
+  if (isStackResults(r)) {
+    const wanted = new Set(['acquisition@1', 'rewetIndicator', 'capacityUsed']);
+    return figs.filter((f) => wanted.has(f.key) && f.value !== null);
+  }
+  const last = r.status === 'ok' ? r.atTimes[r.atTimes.length - 1] : undefined;
   const wanted = new Set(['equilibriumHeight', 'capacityPerMass', ...(last ? [`height@${last.time}`] : [])]);
   return figs.filter((f) => wanted.has(f.key) && f.value !== null);
 }
@@ -155,7 +175,8 @@ function summaryOf(v: Variant, statuses: Map<string, MaterialStatus>, names: Map
     id: v.id,
     designId: v.designId,
     name: v.name,
-    configuration: v.configuration,
+    // The wire type lists the single-layer configurations; 'stack' joins it when VariantSummary is widened.
+    configuration: v.configuration as VariantSummary['configuration'],
     status: v.results.status,
     coreVersion: v.coreVersion,
     usesUnapproved: materials.some((m) => !m.approved),
@@ -180,9 +201,11 @@ async function detailOf(ctx: DesignsContext, v: Variant): Promise<VariantDetail>
     projectName: design?.project?.name ?? '',
     name: v.name,
     notes: v.notes,
-    inputs: v.inputs,
-    options: v.options,
-    results: v.results,
+    // A stack variant's inputs, options and results pass as they are (StackVariantInputs …); VariantDetail
+    // still names the single-layer types until the stack joins its union.
+    inputs: v.inputs as VariantInputs,
+    options: v.options as VariantDetail['options'],
+    results: v.results as VariantDetail['results'],
     coreVersion: v.coreVersion,
     currentCoreVersion: WICK_CORE_VERSION,
     materials,
@@ -206,9 +229,9 @@ export async function getVariant(ctx: DesignsContext, id: number): Promise<Varia
   return detailOf(ctx, await findVariant(ctx, id));
 }
 
-/** Evaluates inputs exactly as the browser does (same wick-core, same options). */
-function evaluate(inputs: VariantInputs) {
-  return { results: evaluateVariant(inputs, DEFAULT_VARIANT_OPTIONS), options: { ...DEFAULT_VARIANT_OPTIONS }, coreVersion: WICK_CORE_VERSION };
+/** Evaluates inputs exactly as the browser does (same wick-core, same options; a stack as its Web Worker does). */
+function evaluate(inputs: AnyVariantInputs) {
+  return { ...evaluateAnyVariant(inputs), coreVersion: WICK_CORE_VERSION };
 }
 
 export async function createVariant(ctx: DesignsContext, designId: number, write: VariantWrite, user: SessionUser): Promise<VariantDetail> {
@@ -311,44 +334,63 @@ async function approvedRevision(ctx: DesignsContext, entryId: number, tx: Transa
   return Revision.findByPk(entry.approvedRevisionId, { transaction: tx });
 }
 
+/** A web pin's newest approved revision with its blend's fibres, when it is newer than the pin. */
+async function newerWeb(ctx: DesignsContext, webPin: PinnedMaterial, tx: Transaction) {
+  const rev = await approvedRevision(ctx, webPin.id, tx);
+  if (!rev || rev.number <= webPin.revision) return null;
+  const data = rev.data as WebData;
+  const fibres: LibraryFibre[] = [];
+  for (const part of data.blend) {
+    if (part.fibreId === undefined) continue;
+    const f = await approvedRevision(ctx, part.fibreId, tx);
+    if (f) fibres.push({ id: part.fibreId, name: f.name, data: f.data as FibreData });
+  }
+  const pinned = { kind: 'web' as const, id: webPin.id, revision: rev.number, name: rev.name, state: rev.state };
+  return { web: { ...pinned, data }, fibres };
+}
+
 /**
  * Moves the web and liquid pins to their newest approved revisions and takes those revisions' values. What the
  * library does not give (a contact angle for this liquid) and what belongs to the variant (dimensions,
- * checkpoints, tolerances, permeability choice when the web has none) is kept.
+ * checkpoints, tolerances, permeability choice when the web has none; a stack layer's name and retention
+ * choice) is kept.
  */
-async function repinToLatest(ctx: DesignsContext, inputs: VariantInputs, tx: Transaction): Promise<VariantInputs> {
-  let next: VariantInputs = inputs;
+async function repinToLatest(ctx: DesignsContext, inputs: AnyVariantInputs, tx: Transaction): Promise<AnyVariantInputs> {
+  let liquid = inputs.liquid;
   const liquidPin = inputs.liquid.pinned;
   if (liquidPin) {
     const rev = await approvedRevision(ctx, liquidPin.id, tx);
     if (rev && rev.number > liquidPin.revision) {
       const pinned = { kind: 'liquid' as const, id: liquidPin.id, revision: rev.number, name: rev.name, state: rev.state };
-      next = { ...next, liquid: { ...next.liquid, pinned, ref: liquidFromLibrary({ ...pinned, data: rev.data as LiquidData }) } };
+      liquid = { ...liquid, pinned, ref: liquidFromLibrary({ ...pinned, data: rev.data as LiquidData }) };
     }
   }
-  const webPin = inputs.structure?.web;
-  if (webPin && inputs.structure) {
-    const rev = await approvedRevision(ctx, webPin.id, tx);
-    if (rev && rev.number > webPin.revision) {
-      const data = rev.data as WebData;
-      const fibres: LibraryFibre[] = [];
-      for (const part of data.blend) {
-        if (part.fibreId === undefined) continue;
-        const f = await approvedRevision(ctx, part.fibreId, tx);
-        if (f) fibres.push({ id: part.fibreId, name: f.name, data: f.data as FibreData });
+  const liquidName = typeof liquid.ref === 'string' ? liquid.ref : liquid.ref.name;
+  if (isStackInputs(inputs)) {
+    const layers: StackVariantInputs['layers'][number][] = [];
+    for (const l of inputs.layers) {
+      const newer = l.structure.web ? await newerWeb(ctx, l.structure.web, tx) : null;
+      if (!newer) {
+        layers.push(l);
+        continue;
       }
-      const liquidName = typeof next.liquid.ref === 'string' ? next.liquid.ref : next.liquid.ref.name;
-      const pinned = { kind: 'web' as const, id: webPin.id, revision: rev.number, name: rev.name, state: rev.state };
-      const { structure } = structureFromLibrary({ ...pinned, data }, fibres, liquidName);
-      next = {
-        ...next,
-        structure: {
-          ...structure,
-          contactAngle: structure.contactAngle ?? inputs.structure.contactAngle,
-          capillaryPressureFrom: inputs.structure.capillaryPressureFrom,
-        },
-      };
+      const { layer } = stackLayerFromLibrary(newer.web, newer.fibres, liquidName, { name: l.name });
+      layers.push({ ...l, structure: { ...layer.structure, contactAngle: layer.structure.contactAngle ?? l.structure.contactAngle } });
     }
+    return { ...inputs, liquid, layers };
+  }
+  let next: VariantInputs = { ...inputs, liquid };
+  const newer = inputs.structure?.web ? await newerWeb(ctx, inputs.structure.web, tx) : null;
+  if (newer && inputs.structure) {
+    const { structure } = structureFromLibrary(newer.web, newer.fibres, liquidName);
+    next = {
+      ...next,
+      structure: {
+        ...structure,
+        contactAngle: structure.contactAngle ?? inputs.structure.contactAngle,
+        capillaryPressureFrom: inputs.structure.capillaryPressureFrom,
+      },
+    };
   }
   return next;
 }

@@ -3,9 +3,12 @@
  * comparison; the data of the printable report pages. Every export is written to the audit log.
  */
 import {
-  describeInputs,
-  keyFigures,
+  anyKeyFigures,
+  describeAnyInputs,
+  isStackResults,
   SAFETY_NOTE,
+  type AnyVariantInputs,
+  type AnyVariantResults,
   type ComparisonReport,
   type VariantDetail,
   type VariantReport,
@@ -44,6 +47,9 @@ export function fileName(label: string, ext: string): string {
   return `${base}.${ext}`;
 }
 
+/** A detail's inputs and results as they are stored: a layer variant's or a stack's. */
+const kindsOf = (v: VariantDetail) => ({ inputs: v.inputs as AnyVariantInputs, results: v.results as AnyVariantResults });
+
 function materialCells(v: Pick<VariantDetail, 'materials' | 'usesUnapproved'>): string {
   if (v.materials.length === 0) return 'none (ad-hoc inputs)';
   return v.materials.map((m) => `${m.kind} ${m.name} rev ${m.revision} (${m.approved ? 'approved' : `${m.state}, not approved`})`).join('; ');
@@ -61,20 +67,33 @@ export function variantCsv(v: VariantDetail): string {
     ['variant', 'wick-core version', v.coreVersion, '', ''],
     ['variant', 'Saved', v.updatedAt, '', v.updatedBy.name],
   );
-  for (const r of describeInputs(v.inputs, v.results)) rows.push(['input', r.label, r.value, r.unit, r.source]);
-  for (const f of keyFigures(v.results)) rows.push(['result', f.label, f.value, f.unit, '']);
-  if (v.results.status === 'ok') {
-    rows.push(['result', 'Capillary pressure method', v.results.capillaryPressure.method, '', '']);
-    rows.push(['result', 'Permeability from', v.results.permeability.label, '', v.results.permeability.source ?? '']);
+  const { inputs, results } = kindsOf(v);
+  for (const r of describeAnyInputs(inputs, results)) rows.push(['input', r.label, r.value, r.unit, r.source]);
+  for (const f of anyKeyFigures(results)) rows.push(['result', f.label, f.value, f.unit, '']);
+  if (isStackResults(results)) {
+    for (const l of results.layers) rows.push(['result', `${l.name}: permeability from`, l.permeabilityLabel, '', l.permeabilitySource ?? '']);
+  } else if (results.status === 'ok') {
+    rows.push(['result', 'Capillary pressure method', results.capillaryPressure.method, '', '']);
+    rows.push(['result', 'Permeability from', results.permeability.label, '', results.permeability.source ?? '']);
   }
   for (const w of v.results.warnings) rows.push(['warning', w.code, w.message, '', '']);
   rows.push(['note', 'Safety note', SAFETY_NOTE, '', '']);
   return toCsv(rows);
 }
 
-/** Curve points: time and height with and without gravity, uptake, rate and the tolerance band. */
+/**
+ * Curve points: time and height with and without gravity, uptake, rate and the tolerance band; for a stack, the
+ * liquid supplied, absorbed and on the surface and the front depth at each snapshot.
+ */
 export function variantCurveCsv(v: VariantDetail): string {
-  const r = v.results;
+  const { results: r } = kindsOf(v);
+  if (isStackResults(r)) {
+    const c = r.curves;
+    return toCsv([
+      ['time_s', 'supplied_m3', 'absorbed_m3', 'surface_liquid_m3', 'front_depth_m'],
+      ...c.time.map((t, i) => [t, c.supplied[i], c.absorbed[i], c.surfaceLiquid[i], c.frontDepth[i]]),
+    ]);
+  }
   const rows: Cell[][] = [
     ['time_s', 'height_m', 'height_no_gravity_m', 'mass_kg', 'mass_rate_kg_per_s', 'p10_m', 'p50_m', 'p90_m'],
   ];
@@ -150,8 +169,8 @@ export async function exportComparisonCsv(
 export function variantReport(v: VariantDetail): VariantReport {
   return {
     variant: v,
-    inputRows: describeInputs(v.inputs, v.results),
-    keyFigures: keyFigures(v.results),
+    inputRows: describeAnyInputs(kindsOf(v).inputs, kindsOf(v).results),
+    keyFigures: anyKeyFigures(kindsOf(v).results),
     equations: v.results.equations,
     warnings: v.results.warnings,
     safetyNote: SAFETY_NOTE,

@@ -82,17 +82,22 @@ export interface ComparedFigure {
   readonly values: readonly ComparedValue[];
 }
 
-export interface ComparableVariant {
+export interface ComparableVariant<R = VariantResults> {
   readonly id: number;
-  readonly results: VariantResults;
+  readonly results: R;
 }
 
 /**
  * Compares variants figure by figure: the union of their key figures in first-seen order, each value's delta
  * against the baseline variant, and the best value marked (ties all marked; none when `better` is null).
  */
-export function compareKeyFigures(variants: readonly ComparableVariant[], baselineId: number): ComparedFigure[] {
-  const perVariant = variants.map((v) => ({ id: v.id, figures: new Map(keyFigures(v.results).map((f) => [f.key, f])) }));
+export function compareKeyFigures<R = VariantResults>(
+  variants: readonly ComparableVariant<R>[],
+  baselineId: number,
+  /** The figures of one result; a layer variant's by default (a stack passes its own, see variant-kinds). */
+  figuresOf: (results: R) => KeyFigure[] = keyFigures as unknown as (results: R) => KeyFigure[],
+): ComparedFigure[] {
+  const perVariant = variants.map((v) => ({ id: v.id, figures: new Map(figuresOf(v.results).map((f) => [f.key, f])) }));
   const order: { key: string; label: string; unit: string; better: BetterDirection }[] = [];
   const seen = new Set<string>();
   for (const v of perVariant) {

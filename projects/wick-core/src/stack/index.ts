@@ -10,3 +10,4 @@ export { readStackVariantInputs } from '../design/stack-read-inputs';
 export { evaluateStackVariant, stackKeyFigures, stackSolverInput, STACK_EQUATIONS } from '../design/stack-evaluate';
 export { stackLayerFromLibrary, type StackLayerFromLibrary } from '../design/stack-from-library';
 export { STACK_VARIANT_EXAMPLE, stackVariantModels } from '../design/stack-models';
+export * from '../design/variant-kinds';
