@@ -1,5 +1,6 @@
 import type { MailboxMessage } from 'wick-core';
 import { type FakeSmtp, startFakeSmtp } from '../src/mail/fake-smtp';
+import { stopOutboxesSendingTo } from '../src/mail/outbox';
 
 export interface TestMailbox {
   readonly fake: FakeSmtp;
@@ -7,7 +8,7 @@ export interface TestMailbox {
   waitFor(match: (m: MailboxMessage) => boolean, timeoutMs?: number): Promise<MailboxMessage>;
   /** All messages whose subject contains `text`. */
   withSubject(text: string): MailboxMessage[];
-  /** Stops the fake and restores the mail settings of the environment. */
+  /** Stops the outboxes sending to the fake, then the fake, and restores the mail settings of the environment. */
   stop(): Promise<void>;
 }
 
@@ -41,6 +42,7 @@ export async function startTestMailbox(): Promise<TestMailbox> {
     async stop() {
       restore('WICK_SMTP_PORT', saved.smtp);
       restore('WICK_MAIL_API_PORT', saved.api);
+      await stopOutboxesSendingTo(`smtp://127.0.0.1:${fake.smtpPort}`);
       await fake.close();
     },
   };

@@ -165,6 +165,7 @@ export class MailOutboxDispatcher {
 }
 
 const dispatchers = new WeakMap<Sequelize, Map<string, MailOutboxDispatcher>>();
+const everyDispatcher = new Set<{ dispatcher: MailOutboxDispatcher; byUrl: Map<string, MailOutboxDispatcher>; key: string }>();
 
 /**
  * One dispatcher per database connection and SMTP address. With `flushOnStart`, the first call also sends
@@ -178,7 +179,23 @@ export function mailOutbox(sequelize: Sequelize, config: MailConfig, options?: O
   if (!d) {
     d = new MailOutboxDispatcher(sequelize, config, options);
     byUrl.set(key, d);
+    everyDispatcher.add({ dispatcher: d, byUrl, key });
     if (options?.flushOnStart) d.kick();
   }
   return d;
+}
+
+/**
+ * Lets every dispatcher that sends to `smtpUrl` finish its current run, then stops and forgets it. For a mail
+ * server that is going away (a test's fake): a dispatcher left behind would claim other dispatchers' messages
+ * from the shared outbox and delay them with failed attempts.
+ */
+export async function stopOutboxesSendingTo(smtpUrl: string): Promise<void> {
+  for (const entry of [...everyDispatcher]) {
+    if (entry.dispatcher.config.smtpUrl !== smtpUrl) continue;
+    await entry.dispatcher.settled();
+    entry.dispatcher.stop();
+    if (entry.byUrl.get(entry.key) === entry.dispatcher) entry.byUrl.delete(entry.key);
+    everyDispatcher.delete(entry);
+  }
 }
