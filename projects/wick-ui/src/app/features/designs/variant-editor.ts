@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { type AbstractControl, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -51,6 +51,8 @@ import {
 
 /** Wait after the last keystroke before recomputing: long enough to skip intermediate digits, short enough to feel live. */
 export const RECOMPUTE_DEBOUNCE_MS = 120;
+/** Pause after which the secondary charts (uptake, pore sizes, sensitivity) catch up. */
+const SETTLE_MS = 400;
 
 const AQUEOUS = /water|saline|nacl|urine|aqueous|exudate|serum/i;
 
@@ -155,16 +157,21 @@ export class VariantEditor {
     const r = this.ok();
     return r ? { data: uptakeTraces(r), layout: uptakeLayout(r, this.timeAxis()) } : null;
   });
+  /**
+   * The results once typing pauses: the secondary charts follow these, so each keystroke redraws only the main
+   * chart (two plotly redraws per keystroke would halve its speed).
+   */
+  private readonly settled = toSignal(toObservable(this.ok).pipe(debounceTime(SETTLE_MS)), { initialValue: null });
   protected readonly massPlot = computed(() => {
-    const r = this.ok();
+    const r = this.settled();
     return r && r.curves.mass ? massTraces(r) : null;
   });
   protected readonly psdPlot = computed(() => {
-    const r = this.ok();
+    const r = this.settled();
     return r?.poreSizeProfile ? psdTraces(r) : null;
   });
   protected readonly tornadoPlot = computed(() => {
-    const r = this.ok();
+    const r = this.settled();
     return r?.tornado ? { data: tornadoTraces(r), layout: tornadoLayout(r) } : null;
   });
   protected readonly massLayout = MASS_LAYOUT;
