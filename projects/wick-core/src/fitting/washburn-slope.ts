@@ -83,8 +83,16 @@ const GRAVITY_FRACTION = 0.2;
 const INERTIAL_EXPONENT = 0.6;
 
 /** The automatic window rule (see {@link SuggestedWindow}) on checked, increasing data. */
-export function suggestWashburnWindow(t: ArrayLike<number>, y: ArrayLike<number>, warnings: ModelWarning[] = []): SuggestedWindow {
+export function suggestWashburnWindow(
+  t: ArrayLike<number>,
+  y: ArrayLike<number>,
+  warnings: ModelWarning[] = [],
+  quantity: 'height' | 'mass' = 'height',
+): SuggestedWindow {
   const n = t.length;
+  // The estimate in the unit a reader of a wicking record expects: mm of height or g of mass.
+  const shown = (v: number | null): string =>
+    v === null ? '' : quantity === 'height' ? `${(v * 1e3).toPrecision(3)} mm` : `${(v * 1e3).toPrecision(3)} g`;
   const minPts = Math.min(MIN_WINDOW_POINTS, n);
   let end = n - 1;
   let yEq: number | null = null;
@@ -144,7 +152,7 @@ export function suggestWashburnWindow(t: ArrayLike<number>, y: ArrayLike<number>
       code: 'window-gravity-affected',
       message:
         `Fewer than ${MIN_WINDOW_POINTS} points lie below 20 % of the estimated equilibrium ` +
-        `(${yEq?.toPrecision(3)}): gravity slows the whole record and the Washburn slope is biased low. ` +
+        `(${shown(yEq)}): gravity slows the whole record and the Washburn slope is biased low. ` +
         'Use the gravity-restrained fit instead.',
     });
   }
@@ -163,7 +171,7 @@ export function suggestWashburnWindow(t: ArrayLike<number>, y: ArrayLike<number>
     `Kept points ${start + 1}–${end + 1} of ${n}: ` +
     (start > 0 ? `${start} leading point(s) rising faster than √t (local exponent > 0.6) or at zero were dropped; ` : '') +
     (droppedLate > 0
-      ? `${droppedLate} late point(s) above 20 % of the estimated equilibrium (${yEq?.toPrecision(3)}) were dropped as gravity-affected.`
+      ? `${droppedLate} late point(s) above 20 % of the estimated equilibrium (${shown(yEq)}) were dropped as gravity-affected.`
       : 'no gravity slowing was cut.');
   return {
     startIndex: start,
@@ -188,12 +196,12 @@ export function fitWashburnSlope(input: WashburnSlopeInput): WashburnSlopeResult
   const minPts = 3;
   const { t, y } = checkUptakeSeries(input.time, input.values, minPts, quantity);
   const warnings: ModelWarning[] = [];
-  const suggested = suggestWashburnWindow(t, y, []);
+  const suggested = suggestWashburnWindow(t, y, [], quantity);
   const choice = input.window ?? 'auto';
   let i0: number;
   let i1: number;
   if (choice === 'auto') {
-    const w = suggestWashburnWindow(t, y, warnings);
+    const w = suggestWashburnWindow(t, y, warnings, quantity);
     i0 = w.startIndex;
     i1 = w.endIndex;
   } else if (choice === 'all') {
