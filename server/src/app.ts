@@ -13,6 +13,7 @@ import { authRouter } from './routes/auth.router';
 import { devMailboxRouter } from './routes/dev-mailbox.router';
 import { docsRouter } from './routes/docs.router';
 import { healthRouter } from './routes/health.router';
+import { labDataRouter } from './routes/lab-data.router';
 import { libraryRouter } from './routes/library.router';
 import { meRouter } from './routes/me.router';
 import { compareRouter } from './routes/compare.router';
@@ -61,6 +62,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/me', meRouter(deps, auth));
   app.use('/api/admin', adminRouter(deps));
   app.use('/api/library', libraryRouter(deps));
+  app.use('/api/lab-data', labDataRouter(deps));
   app.use('/api/dev/mailbox', devMailboxRouter(deps));
   app.use('/api/docs', docsRouter(deps));
   app.use('/api/compute', computeRouter(deps));

@@ -25,3 +25,4 @@ export * from './fitting';
 export * from './stack';
 export * from './api/library';
 export * from './design';
+export * from './api/lab-data';

@@ -1,8 +1,12 @@
 import type { ModelStatic, Sequelize } from 'sequelize';
 import { type AuditLog, initAuditLog } from './audit-log';
+import { type LabRun, initLabRun } from './lab-run';
+import { type LabSet, initLabSet } from './lab-set';
 import { type User, initUser } from './user';
 
 export { AuditLog } from './audit-log';
+export { LabRun } from './lab-run';
+export { LabSet } from './lab-set';
 export { User } from './user';
 
 export interface AuthModels {
@@ -26,7 +30,7 @@ export function authModels(sequelize: Sequelize): AuthModels {
   return models;
 }
 
-// ── Design workspace: projects → designs → variants, and decisions (issue 6) ─────────────────────────────────
+// ── Design workspace: projects → designs → variants, and decisions ─────────────────────────────────────────
 import { type Decision, initDecision } from './decision';
 import { type Design, initDesign } from './design';
 import { type Project, initProject } from './project';
@@ -65,5 +69,27 @@ export function designModels(sequelize: Sequelize): DesignModels {
   models.Variant.belongsTo(models.Design, { foreignKey: 'designId', as: 'design' });
   models.Decision.belongsTo(models.User, { foreignKey: 'decidedBy', as: 'decider', constraints: false });
   boundDesigns.set(sequelize, models);
+  return models;
+}
+
+// ── Lab data: replicate sets and measured runs ───────────────────────────────────────────────────────────────
+
+export interface LabModels {
+  readonly LabSet: ModelStatic<LabSet>;
+  readonly LabRun: ModelStatic<LabRun>;
+  readonly User: ModelStatic<User>;
+}
+
+const boundLab = new WeakMap<Sequelize, LabModels>();
+
+/** The lab-data models bound to one Sequelize instance, with their associations. */
+export function labModels(sequelize: Sequelize): LabModels {
+  const hit = boundLab.get(sequelize);
+  if (hit) return hit;
+  const { User: BoundUser } = authModels(sequelize);
+  const models: LabModels = { LabSet: initLabSet(sequelize), LabRun: initLabRun(sequelize), User: BoundUser };
+  models.LabSet.hasMany(models.LabRun, { foreignKey: 'setId', as: 'runs' });
+  models.LabRun.belongsTo(models.LabSet, { foreignKey: 'setId', as: 'labSet' });
+  boundLab.set(sequelize, models);
   return models;
 }

@@ -8,6 +8,7 @@ import type { ReferenceLiquidResult } from '../fitting/contact-angle';
 import type { FitSettings, ReplicateFigure, RunAnalysis, RunFigures } from '../fitting/lab-run';
 import type { PredictionErrorResult } from '../fitting/metrics';
 import type { VariantConfiguration } from '../design/variant';
+import type { LiquidProperties } from '../liquids/liquid-at';
 import type { CurveMeasurement, FileRef, UserRef } from './library';
 import type { Plain } from './plain';
 
@@ -51,6 +52,20 @@ export interface RunLiquid {
   readonly sources: Readonly<Record<'surfaceTension' | 'viscosity' | 'density', string>>;
   /** Validity remarks from the liquid model at this temperature. */
   readonly remarks: readonly string[];
+}
+
+/** A run's liquid from wick-core's properties at the run temperature and the liquid's identity. */
+export function runLiquidOf(p: LiquidProperties, identity: Pick<RunLiquid, 'source' | 'builtInId' | 'entryId' | 'revision'>): RunLiquid {
+  return {
+    ...identity,
+    name: p.name,
+    surfaceTension: p.surfaceTension,
+    viscosity: p.viscosity,
+    density: p.density,
+    flammable: p.flammable ?? false,
+    sources: { ...p.sources },
+    remarks: [...new Set(p.warnings.map((w) => w.message))],
+  };
 }
 
 /** The web a run's specimen was cut from, pinned at a revision. */

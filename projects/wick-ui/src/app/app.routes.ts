@@ -23,7 +23,7 @@ export const routes: Routes = [
   { path: 'liquids', ...guarded('library:read'), data: { title: 'Test liquids' }, loadChildren: () => import('./features/liquids/liquids.routes').then((m) => m.LIQUIDS_ROUTES) },
   { path: 'designs', ...guarded('designs:read'), data: { title: 'Designs' }, loadChildren: () => import('./features/designs/designs.routes').then((m) => m.DESIGNS_ROUTES) },
   { path: 'compare', ...guarded('designs:read'), data: { title: 'Compare & decide' }, loadChildren: () => import('./features/compare/compare.routes').then((m) => m.COMPARE_ROUTES) },
-  { path: 'lab-data', ...guarded('labdata:read'), ...planned('Lab data', 'Uploading and fitting measured wicking curves arrives with the lab-data feature.') },
+  { path: 'lab-data', ...guarded('labdata:read'), data: { title: 'Lab data' }, loadChildren: () => import('./features/lab-data/lab-data.routes').then((m) => m.LAB_DATA_ROUTES) },
   {
     path: 'reviews',
     ...guarded('library:review'),
