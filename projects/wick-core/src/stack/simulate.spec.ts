@@ -151,6 +151,19 @@ describe('stack model: insults and acquisition', () => {
     expect(r.totals.surfaceLiquid).toBeGreaterThan(0);
     expect(r.massBalance.relativeError).toBeLessThan(1e-6);
   });
+
+  it('says liquid stands from the start of a gush that lands on liquid an earlier gush left standing', () => {
+    // Two gushes 30 s apart onto a stack that the first already fills: the second lands on standing liquid.
+    const input = stack({
+      top: { kind: 'insults', insults: [{ start: 0, volume: 6e-3, rate: 5e-3 }, { start: 30, volume: 1e-3, rate: 5e-3 }] },
+      endTime: 90,
+    });
+    const r = simulateStack(input);
+    expect(r.insults[0].pondingTime).not.toBeNull();
+    expect(r.insults[1].pondingTime).toBe(0);
+    expect(r.insults[1].acquisitionTime).toBeNull();
+    expect(r.massBalance.relativeError).toBeLessThan(1e-6);
+  });
 });
 
 describe('stack model: properties', () => {

@@ -650,7 +650,11 @@ export function solveRichards(p: RichardsProblem): RichardsOutput {
     for (let k = 0; k < p.insults.length; k++) {
       const ins = p.insults[k];
       const thr = POND_EMPTY_FRACTION * ins.volume;
-      if (insultState[k] === 0 && tNew > ins.start) insultState[k] = 1;
+      if (insultState[k] === 0 && tNew > ins.start) {
+        insultState[k] = 1;
+        // Liquid of an earlier gush still stands when this one lands: it stands from the start.
+        if (pondBefore > thr) pondStart[k] = 0;
+      }
       if (insultState[k] === 1 || insultState[k] === 2) peak[k] = Math.max(peak[k], pondNew);
       if (insultState[k] === 1 && pondStart[k] === null && pondBefore <= thr && pondNew > thr) {
         // The surface flooded during this step: back off by the time the excess supply needed to build it.

@@ -219,7 +219,7 @@ export interface InsultResult {
   readonly deliveryTime: number;
   /** Time from the start until no liquid stands on the surface, s; null if not reached. */
   readonly acquisitionTime: number | null;
-  /** Time from the start until liquid first stood on the surface (ponding), s; null if it never did. */
+  /** Time from the start until liquid first stood on the surface (ponding), s; 0 when an earlier gush's liquid still stood; null if it never did. */
   readonly pondingTime: number | null;
   /** Largest surface liquid during the insult, m³/m². */
   readonly peakSurfaceLiquid: number;
