@@ -83,19 +83,25 @@ export function quantityErrorMessage(errors: ValidationErrors | null | undefined
         (input)="typed($any($event.target).value)"
         (blur)="blurred()"
       />
+      @if (units().length === 1 && labelOf(units()[0]) !== '–') {
+        <span matTextSuffix>{{ labelOf(units()[0]) }}</span>
+      }
       @if (hint()) {
         <mat-hint>{{ hint() }}</mat-hint>
       }
       <mat-error>{{ error() }}</mat-error>
     </mat-form-field>
-    <mat-form-field class="unit" [subscriptSizing]="subscriptSizing()">
-      <mat-label>Unit</mat-label>
-      <mat-select [value]="unit()" [disabled]="disabled()" (selectionChange)="unitChosen($event.value)" [aria-label]="label() + ' unit'">
-        @for (u of units(); track u) {
-          <mat-option [value]="u">{{ labelOf(u) }}</mat-option>
-        }
-      </mat-select>
-    </mat-form-field>
+    <!-- A choice of unit only where there is one: counts and other single-unit quantities get none. -->
+    @if (units().length > 1) {
+      <mat-form-field class="unit" [subscriptSizing]="subscriptSizing()">
+        <mat-label>Unit</mat-label>
+        <mat-select [value]="unit()" [disabled]="disabled()" (selectionChange)="unitChosen($event.value)" [aria-label]="label() + ' unit'">
+          @for (u of units(); track u) {
+            <mat-option [value]="u">{{ labelOf(u) }}</mat-option>
+          }
+        </mat-select>
+      </mat-form-field>
+    }
   `,
   styles: `
     :host {
