@@ -21,6 +21,7 @@ import {
   type StackVariantResults,
 } from './stack-variant';
 import {
+  CONFIGURATION_LABELS,
   DEFAULT_VARIANT_OPTIONS,
   type EvaluateVariantOptions,
   type PinnedMaterial,
@@ -33,6 +34,9 @@ export type AnyVariantInputs = VariantInputs | StackVariantInputs;
 export type AnyVariantResults = VariantResults | StackVariantResults;
 export type AnyVariantConfiguration = VariantConfiguration | typeof STACK_CONFIGURATION;
 export type AnyVariantOptions = Required<EvaluateVariantOptions> | Required<EvaluateStackOptions>;
+
+/** Labels of every configuration, the stack included (lists, compare tables, reports). */
+export const ANY_CONFIGURATION_LABELS: Readonly<Record<AnyVariantConfiguration, string>> = { ...CONFIGURATION_LABELS, stack: 'Layered stack' };
 
 export function isStackInputs(inputs: AnyVariantInputs): inputs is StackVariantInputs {
   return inputs.configuration === STACK_CONFIGURATION;

@@ -11,12 +11,13 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
-import { COMPARE_MAX, COMPARE_MIN, CONFIGURATION_LABELS, SAFETY_NOTE, type CompareResponse, type ProjectDetail, type ProjectSummary } from 'wick-core';
+import { ANY_CONFIGURATION_LABELS, COMPARE_MAX, COMPARE_MIN, SAFETY_NOTE, type CompareResponse, type ProjectDetail, type ProjectSummary } from 'wick-core';
 import { AuthStore } from '../../core/auth/auth-store';
 import { Chart } from '../designs/chart';
 import { DesignsApi } from '../designs/designs-api';
 import { show, showRelative } from '../designs/format';
 import { OVERLAY_LAYOUT, overlayTraces } from '../designs/plots';
+import { variantRoute } from '../designs/stack/stack-links';
 import { errorText } from '../designs/variant-editor';
 import { CompareApi } from './compare-api';
 
@@ -58,7 +59,8 @@ export class ComparePage {
   protected readonly message = signal<string | null>(null);
   protected readonly canDecide = computed(() => this.auth.can('decisions:record'));
   protected readonly canExport = computed(() => this.auth.can('designs:export'));
-  protected readonly labels = CONFIGURATION_LABELS;
+  protected readonly labels: Readonly<Record<string, string>> = ANY_CONFIGURATION_LABELS;
+  protected readonly variantRoute = variantRoute;
   protected readonly safetyNote = SAFETY_NOTE;
   protected readonly show = show;
   protected readonly showRelative = showRelative;

@@ -10,10 +10,11 @@ import { MatInputModule } from '@angular/material/input';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
-import { CONFIGURATION_LABELS, COMPARE_MAX, COMPARE_MIN, type ProjectDetail } from 'wick-core';
+import { ANY_CONFIGURATION_LABELS, COMPARE_MAX, COMPARE_MIN, type ProjectDetail } from 'wick-core';
 import { AuthStore } from '../../core/auth/auth-store';
 import { DesignsApi } from './designs-api';
 import { showFigure } from './format';
+import { variantRoute } from './stack/stack-links';
 import { errorText } from './variant-editor';
 
 /** One project: its designs with their variants (marked when they use unapproved material), and its decisions. */
@@ -33,7 +34,8 @@ export class ProjectPage {
   protected readonly selected = signal<readonly number[]>([]);
   protected readonly error = signal<string | null>(null);
   protected readonly canEdit = computed(() => this.auth.can('designs:edit'));
-  protected readonly labels = CONFIGURATION_LABELS;
+  protected readonly labels: Readonly<Record<string, string>> = ANY_CONFIGURATION_LABELS;
+  protected readonly variantRoute = variantRoute;
   protected readonly showFigure = showFigure;
   protected readonly compareMin = COMPARE_MIN;
   protected readonly compareMax = COMPARE_MAX;
