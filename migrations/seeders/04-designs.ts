@@ -1,17 +1,24 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import {
+  anyKeyFigures,
   compareKeyFigures,
-  DEFAULT_VARIANT_OPTIONS,
-  evaluateVariant,
+  evaluateAnyVariant,
   liquidFromLibrary,
+  pinnedMaterials,
+  STACK_VARIANT_EXAMPLE,
+  stackLayerFromLibrary,
   structureFromLibrary,
   WICK_CORE_VERSION,
+  type AnyVariantInputs,
+  type AnyVariantResults,
+  type PinnedMaterial,
+  type StackLayerInputs,
+  type StackVariantInputs,
   type FibreData,
   type LibraryFibre,
   type LiquidData,
   type StructureInputs,
   type VariantInputs,
-  type VariantResults,
   type WebData,
 } from 'wick-core';
 import { loadAuthConfig } from '../../server/src/auth/auth-config';
@@ -20,7 +27,7 @@ import type { Migration } from '../umzug';
 
 /**
  * Invented demo scenario for the design workspace: Brightwell Hygiene's night incontinence pad programme, with
- * an acquisition-layer design and a core-density design (seven variants) and one recorded decision. Webs come
+ * an acquisition-layer design, a core-density design, a layered-stack design (nine variants) and one recorded decision. Webs come
  * from the demo library when it has approved ones of the right kind; otherwise the variants use ad-hoc
  * structures with plausible, invented values. All names and numbers are fictional.
  */
@@ -79,8 +86,12 @@ async function libraryRevision(sequelize: Sequelize, kind: string, name: string,
   return rows[0] ?? null;
 }
 
-/** A library web as a variant structure (its fibres at their approved or newest revision), or null. */
-async function libraryStructure(sequelize: Sequelize, name: string, liquidName: string, transaction: Transaction): Promise<StructureInputs | null> {
+/** A library web pinned at its approved (else newest) revision, with its fibres likewise; null when absent. */
+async function libraryWeb(
+  sequelize: Sequelize,
+  name: string,
+  transaction: Transaction,
+): Promise<{ web: PinnedMaterial & { readonly data: WebData }; fibres: LibraryFibre[] } | null> {
   const web = await libraryRevision(sequelize, 'web', name, transaction);
   if (!web) return null;
   const fibres: LibraryFibre[] = [];
@@ -93,16 +104,40 @@ async function libraryStructure(sequelize: Sequelize, name: string, liquidName: 
     );
     if (f[0]) fibres.push({ id: f[0].entry_id, name: f[0].name, data: f[0].data as FibreData });
   }
+  return { web: { kind: 'web', id: web.entry_id, revision: web.number, name: web.name, state: web.state, data: web.data as WebData }, fibres };
+}
+
+/** A library web as a variant structure (its fibres at their approved or newest revision), or null. */
+async function libraryStructure(sequelize: Sequelize, name: string, liquidName: string, transaction: Transaction): Promise<StructureInputs | null> {
+  const found = await libraryWeb(sequelize, name, transaction);
+  if (!found) return null;
   try {
-    const { structure } = structureFromLibrary(
-      { kind: 'web', id: web.entry_id, revision: web.number, name: web.name, state: web.state, data: web.data as WebData },
-      fibres,
-      liquidName,
-      { aqueous: true },
-    );
+    const { structure } = structureFromLibrary(found.web, found.fibres, liquidName, { aqueous: true });
     return { ...structure, contactAngle: structure.contactAngle ?? deg(55) };
   } catch {
     return null;
+  }
+}
+
+/**
+ * A stack layer from a library web (through-plane permeability, retention from its pore sizes); the invented
+ * `fallback` layer when the web is absent, and the fallback's retention parameters when the web has no pore sizes.
+ */
+async function libraryStackLayer(
+  sequelize: Sequelize,
+  name: string,
+  liquidName: string,
+  fallback: StackLayerInputs,
+  transaction: Transaction,
+): Promise<StackLayerInputs> {
+  const found = await libraryWeb(sequelize, name, transaction);
+  if (!found) return fallback;
+  try {
+    const { layer } = stackLayerFromLibrary(found.web, found.fibres, liquidName, { aqueous: true, name: fallback.name });
+    const structure = { ...layer.structure, contactAngle: layer.structure.contactAngle ?? fallback.structure.contactAngle };
+    return { ...layer, structure, retention: layer.retention ?? fallback.retention, ...(fallback.residualContent ? { residualContent: fallback.residualContent } : {}) };
+  } catch {
+    return fallback;
   }
 }
 
@@ -225,7 +260,7 @@ export const up: Migration = async ({ context: { sequelize } }) => {
     const tab60 = await libraryStructure(sequelize, 'TAB-60', 'saline', transaction);
     const spunlace = await libraryStructure(sequelize, 'SL-50', 'saline', transaction);
     const airlaid = (await libraryStructure(sequelize, 'AL-150', 'urine', transaction)) ?? ADHOC.airlaid(0.003);
-    const variants: { design: number; name: string; notes: string; inputs: VariantInputs }[] = [
+    const variants: { design: number; name: string; notes: string; inputs: AnyVariantInputs }[] = [
       {
         design: adlDesign,
         name: 'ADL A — through-air bonded, 40 g/m²',
@@ -264,13 +299,45 @@ export const up: Migration = async ({ context: { sequelize } }) => {
       inputs: { ...core(airlaid, urine), configuration: 'horizontal-strip', dimensions: { width: 0.05, length: 0.25, duration: 120 } },
     });
 
+    // The layered product: topsheet, acquisition layer and core from the library, three gushes of saline.
+    const stackDesign = await insert('designs', {
+      project_id: projectId,
+      name: 'Layered pad: gush intake',
+      description: 'Topsheet, acquisition layer and airlaid core under three 15 mL gushes five minutes apart.',
+      created_by: priya,
+    });
+    const [exTop, exAdl, exCore] = STACK_VARIANT_EXAMPLE.layers;
+    const top = await libraryStackLayer(sequelize, 'SB-12', 'saline', exTop, transaction);
+    const acq = await libraryStackLayer(sequelize, 'TAB-40', 'saline', exAdl, transaction);
+    const pad = await libraryStackLayer(sequelize, 'AL-150', 'saline', exCore, transaction);
+    const stack = (layers: StackLayerInputs[]): StackVariantInputs => ({
+      ...STACK_VARIANT_EXAMPLE,
+      layers,
+      liquid: saline,
+      duration: 900,
+    });
+    variants.push(
+      {
+        design: stackDesign,
+        name: 'Pad stack with TAB-40 acquisition layer',
+        notes: 'Current construction; acquisition time of each gush and the liquid left under the topsheet.',
+        inputs: stack([top, acq, pad]),
+      },
+      {
+        design: stackDesign,
+        name: 'Pad stack without acquisition layer',
+        notes: 'Cost-down option: topsheet straight on the core.',
+        inputs: stack([top, pad]),
+      },
+    );
+
     const ids: number[] = [];
-    const allResults: VariantResults[] = [];
+    const allResults: AnyVariantResults[] = [];
     for (const v of variants) {
-      const inputs = JSON.parse(JSON.stringify(v.inputs)) as VariantInputs;
-      const results = evaluateVariant(inputs, DEFAULT_VARIANT_OPTIONS);
+      const inputs = JSON.parse(JSON.stringify(v.inputs)) as AnyVariantInputs;
+      // Evaluated by the same function the server uses when a variant is saved.
+      const { results, options } = evaluateAnyVariant(inputs);
       allResults.push(results);
-      const materials = inputs.structure?.web ? [inputs.structure.web] : [];
       ids.push(
         await insert('variants', {
           design_id: v.design,
@@ -278,10 +345,10 @@ export const up: Migration = async ({ context: { sequelize } }) => {
           notes: v.notes,
           configuration: inputs.configuration,
           inputs: JSON.stringify(inputs),
-          options: JSON.stringify(DEFAULT_VARIANT_OPTIONS),
+          options: JSON.stringify(options),
           results: JSON.stringify(results),
           core_version: WICK_CORE_VERSION,
-          materials: JSON.stringify(materials),
+          materials: JSON.stringify(pinnedMaterials(inputs)),
           created_by: priya,
           updated_by: priya,
         }),
@@ -299,7 +366,7 @@ export const up: Migration = async ({ context: { sequelize } }) => {
         'Keep ADL A for the pilot run: its data is approved and it holds the rise within tolerance. Revisit ADL B once ' +
         'its library data is approved; confirm either with the standard strip wicking test before release.',
       snapshot: JSON.stringify({
-        figures: compareKeyFigures(compared.map((id, i) => ({ id, results: allResults[i] })), compared[0]),
+        figures: compareKeyFigures(compared.map((id, i) => ({ id, results: allResults[i] })), compared[0], anyKeyFigures),
         variants: compared.map((id, i) => ({ id, name: variants[i].name })),
       }),
       decided_by: martin,
