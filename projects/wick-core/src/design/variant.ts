@@ -43,6 +43,22 @@ export const VARIANT_CORRELATIONS = [
 ] as const;
 export type PermeabilityCorrelationId = (typeof VARIANT_CORRELATIONS)[number];
 
+/** How the correlations read in forms, reports and CSV (published names; flow direction relative to the fibres or plane). */
+export const VARIANT_CORRELATION_LABELS: Readonly<Record<PermeabilityCorrelationId, string>> = {
+  'tomadakis-robertson-2d-in-plane': 'Tomadakis–Robertson, 2-D web, in-plane',
+  'tomadakis-robertson-2d-through-plane': 'Tomadakis–Robertson, 2-D web, through-plane',
+  'tomadakis-robertson-3d': 'Tomadakis–Robertson, 3-D random',
+  'kozeny-carman': 'Kozeny–Carman',
+  davies: 'Davies',
+  'happel-across': 'Happel, flow across fibres',
+  'happel-along': 'Happel, flow along fibres',
+  'jackson-james': 'Jackson & James',
+  'gebart-across-quadratic': 'Gebart, across fibres, square packing',
+  'gebart-across-hexagonal': 'Gebart, across fibres, hexagonal packing',
+  'gebart-along-quadratic': 'Gebart, along fibres, square packing',
+  'gebart-along-hexagonal': 'Gebart, along fibres, hexagonal packing',
+};
+
 /** A library entry pinned at one revision; the variant keeps using that revision until re-pinned. */
 export interface PinnedMaterial {
   readonly kind: 'web' | 'fibre' | 'liquid';

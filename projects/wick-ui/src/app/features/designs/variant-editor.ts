@@ -23,6 +23,7 @@ import {
   TOLERANCE_FIELDS,
   VARIANT_CONFIGURATIONS,
   VARIANT_CORRELATIONS,
+  VARIANT_CORRELATION_LABELS,
   type ApiErrorBody,
   type PinnedMaterial,
   type ToleranceParameter,
@@ -113,6 +114,7 @@ export class VariantEditor {
   protected readonly configurations = VARIANT_CONFIGURATIONS;
   protected readonly configurationLabels = CONFIGURATION_LABELS;
   protected readonly correlations = VARIANT_CORRELATIONS;
+  protected readonly correlationLabels = VARIANT_CORRELATION_LABELS;
   protected readonly builtInLiquids = BUILT_IN_LIQUIDS;
   protected readonly toleranceFields = TOLERANCE_FIELDS;
   protected readonly safetyNote = SAFETY_NOTE;

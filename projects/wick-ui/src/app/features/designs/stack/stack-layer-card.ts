@@ -9,7 +9,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { STACK_RETENTION_LABELS, STACK_RETENTION_MODES, VARIANT_CORRELATIONS } from 'wick-core';
+import { STACK_RETENTION_LABELS, STACK_RETENTION_MODES, VARIANT_CORRELATIONS, VARIANT_CORRELATION_LABELS } from 'wick-core';
 import { UnitInput } from '../../../shared/unit-input/unit-input';
 import type { LayerGroup } from './stack-form';
 
@@ -89,7 +89,7 @@ import type { LayerGroup } from './stack-form';
             <mat-label>Correlation</mat-label>
             <mat-select formControlName="correlation" [attr.data-field]="at('structure.permeability.correlation')">
               @for (c of correlations; track c) {
-                <mat-option [value]="c">{{ c }}</mat-option>
+                <mat-option [value]="c">{{ correlationLabels[c] }}</mat-option>
               }
             </mat-select>
             @if (err('structure.permeability'); as e) {
@@ -163,6 +163,7 @@ export class StackLayerCard {
   readonly remove = output<void>();
 
   protected readonly correlations = VARIANT_CORRELATIONS;
+  protected readonly correlationLabels = VARIANT_CORRELATION_LABELS;
   protected readonly retentionModes = STACK_RETENTION_MODES;
   protected readonly retentionLabels = STACK_RETENTION_LABELS;
 
