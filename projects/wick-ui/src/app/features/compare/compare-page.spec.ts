@@ -88,4 +88,37 @@ describe('ComparePage', () => {
     fixture.detectChanges();
     expect(el.querySelector('[data-testid="decision-message"]')?.textContent).toContain('V1');
   });
+
+  it('without a selection, opens the only project straight away and lists its decisions with a link back to each comparison', async () => {
+    TestBed.configureTestingModule({
+      imports: [ComparePage],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        { provide: AuthStore, useValue: { status: signal('signed-in'), load: () => Promise.resolve(), can: (p: Permission) => p === 'designs:read' } },
+      ],
+    });
+    const fixture = TestBed.createComponent(ComparePage);
+    fixture.detectChanges();
+    const http = TestBed.inject(HttpTestingController);
+    const summary = { id: 5, name: 'Pad', description: '', designCount: 1, variantCount: 2, updatedAt: '2026-01-01T00:00:00Z' };
+    http.expectOne('/api/projects').flush([summary]);
+    await fixture.whenStable();
+    const variant = (id: number, name: string) => ({ id, name, configuration: 'vertical-strip', status: 'ok', usesUnapproved: false, headline: [], updatedAt: '', updatedBy: { id: 1, name: 'P' } });
+    http.expectOne('/api/projects/5').flush({
+      ...summary,
+      designs: [{ id: 7, projectId: 5, name: 'ADL', description: '', variants: [variant(11, 'A'), variant(12, 'B')] }],
+      decisions: [{ id: 3, projectId: 5, variantIds: [11, 12], baselineVariantId: 12, chosenVariantId: 11, chosenVariantName: 'A', rationale: 'Faster.', decidedBy: { id: 4, name: 'Martin' }, decidedAt: '2026-01-02T10:00:00Z' }],
+    });
+    await fixture.whenStable();
+    fixture.detectChanges();
+    const el = fixture.nativeElement as HTMLElement;
+    expect(el.querySelectorAll('mat-checkbox').length).toBe(2);
+    const decisions = el.querySelector('[data-testid="project-decisions"]')!;
+    expect(decisions.textContent).toContain('A');
+    expect(decisions.textContent).toContain('Martin');
+    expect(decisions.textContent).toContain('Faster.');
+    expect(decisions.querySelector('a')?.getAttribute('href')).toBe('/compare?variants=11,12&baseline=12');
+  });
 });

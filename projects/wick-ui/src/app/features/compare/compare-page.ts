@@ -90,7 +90,13 @@ export class ComparePage {
       if (ids.length >= COMPARE_MIN) void this.load(ids, baseline);
       else {
         this.comparison.set(null);
-        if (this.projects() === null) firstValueFrom(this.designs.projects()).then((p) => this.projects.set(p));
+        if (this.projects() === null) {
+          firstValueFrom(this.designs.projects()).then((p) => {
+            this.projects.set(p);
+            // One project: nothing to choose, show its variants and decisions straight away.
+            if (p.length === 1 && !this.pickedProject()) void this.pickProject(p[0].id);
+          }, (e: unknown) => this.error.set(errorText(e)));
+        }
       }
     });
   }
