@@ -303,7 +303,7 @@ export const up: Migration = async ({ context: { sequelize } }) => {
     const stackDesign = await insert('designs', {
       project_id: projectId,
       name: 'Layered pad: gush intake',
-      description: 'Topsheet, acquisition layer and airlaid core under three 15 mL gushes five minutes apart.',
+      description: 'Topsheet, acquisition layer and airlaid core under three 15 mL gushes five minutes apart, over a 200 cm² insult zone.',
       created_by: priya,
     });
     const [exTop, exAdl, exCore] = STACK_VARIANT_EXAMPLE.layers;
@@ -314,6 +314,8 @@ export const up: Migration = async ({ context: { sequelize } }) => {
       ...STACK_VARIANT_EXAMPLE,
       layers,
       liquid: saline,
+      // Three 15 mL gushes at 5 mL/s, five minutes apart, entering through the pad's 200 cm² insult zone.
+      insult: { volume: 15e-6, rate: 5e-6, area: 200e-4, count: 3, interval: 300 },
       duration: 900,
     });
     variants.push(
@@ -326,7 +328,7 @@ export const up: Migration = async ({ context: { sequelize } }) => {
       {
         design: stackDesign,
         name: 'Pad stack without acquisition layer',
-        notes: 'Cost-down option: topsheet straight on the core.',
+        notes: 'Cost-down option: topsheet straight on the core, so less pore volume under the insult zone.',
         inputs: stack([top, pad]),
       },
     );

@@ -33,8 +33,8 @@ describe('demo design seeder', () => {
         expect(v.materials.length).withContext(s.name).toBeGreaterThan(0);
       }
 
-      // The stack with an acquisition layer takes the first gush in no longer than the one without (common
-      // practice: an open, coarse layer between topsheet and core buffers the gush), and both conserve mass.
+      // The demo's story: 45 mL into 200 cm². With the acquisition layer the stack has the pore volume for all three
+      // gushes; without it the third finds the stack full and stands on the surface (capacity = ε·thickness·area).
       const stacks = await Promise.all(
         summaries
           .filter((v) => (v.configuration as string) === 'stack')
@@ -43,8 +43,8 @@ describe('demo design seeder', () => {
       const withAdl = stacks.find((v) => v.name.includes('with '))!.results;
       const without = stacks.find((v) => v.name.includes('without'))!.results;
       for (const r of [withAdl, without]) expect(r.massBalance.relativeError).toBeLessThan(1e-6);
-      const first = (r: StackVariantResults) => r.insults[0].acquisitionTime ?? Number.POSITIVE_INFINITY;
-      expect(first(withAdl)).toBeLessThanOrEqual(first(without));
+      expect(withAdl.insults.map((g) => g.acquisitionTime !== null)).toEqual([true, true, true]);
+      expect(without.insults[2].acquisitionTime).toBeNull();
     } finally {
       await down({ context });
       await library.down({ context });
