@@ -150,6 +150,10 @@ describe('design workspace routes: stack variants', () => {
     expect(used.values[1].best).toBeTrue();
     expect(c.figures.some((f) => f.key === 'equilibriumHeight')).toBeTrue();
     expect(c.variants[0].curve).toBeNull();
+    // A stack brings its uptake instead: absorbed volume ends at the run's total, a layer variant brings none.
+    expect(c.variants[0].uptake!.time.length).toBe(DEFAULT_STACK_OPTIONS.snapshots);
+    expect(c.variants[0].uptake!.absorbed.at(-1)).toBeGreaterThan(0);
+    expect(c.variants[2].uptake).toBeNull();
 
     const csv = await engineer.get(`/api/variants/${stack.id}/export.csv?what=summary`).expect(200);
     const rows = parse(csv.text) as string[][];

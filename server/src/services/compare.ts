@@ -64,6 +64,7 @@ export async function compareVariants(ctx: DesignsContext, ids: readonly number[
       materials,
       // The overlay plots wetted length against time; a stack has no such curve (its figures compare instead).
       curve: !isStackResults(r) && r.status === 'ok' ? { time: r.curves.time, height: r.curves.height } : null,
+      uptake: isStackResults(r) ? { time: r.curves.time, absorbed: r.curves.absorbed, surfaceLiquid: r.curves.surfaceLiquid } : null,
     };
   });
   const figures = compareKeyFigures(

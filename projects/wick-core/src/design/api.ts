@@ -152,6 +152,8 @@ export interface CompareVariant {
   readonly materials: readonly MaterialStatus[];
   /** Curve for the overlay plot (time s, height m), null without uptake. */
   readonly curve: { readonly time: readonly number[]; readonly height: readonly number[] } | null;
+  /** A layered stack's liquid taken in against time (time s, absorbed and standing on the surface m³); null otherwise. */
+  readonly uptake?: { readonly time: readonly number[]; readonly absorbed: readonly number[]; readonly surfaceLiquid: readonly number[] } | null;
 }
 
 /** `GET /api/compare?variants=1,2,3&baseline=2`. */

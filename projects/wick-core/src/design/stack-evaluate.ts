@@ -347,7 +347,8 @@ export function stackKeyFigures(results: StackVariantResults): KeyFigure[] {
   out.push(
     { key: 'surfaceLiquidEnd', label: 'Liquid on the surface at the end', unit: 'm^3', value: t.surfaceLiquid, better: 'lower' },
     { key: 'rewetIndicator', label: `Liquid left in ${upper} (rewet indicator)`, unit: 'm^3', value: t.upperLayerLiquid, better: 'lower' },
-    { key: 'capacityUsed', label: 'Capacity used', unit: '1', value: results.capacityUsed, better: 'lower' },
+    // A volume fraction (liquid held / pore volume): shown as a percentage.
+    { key: 'capacityUsed', label: 'Capacity used', unit: 'm^3/m^3', value: results.capacityUsed, better: 'lower' },
     { key: 'absorbed', label: 'Liquid absorbed by the end', unit: 'm^3', value: t.absorbed, better: 'higher' },
     { key: 'stackPoreVolume', label: 'Pore volume of the stack', unit: 'm^3', value: t.poreVolume, better: 'higher' },
     { key: 'massBalanceError', label: 'Mass-balance error (relative)', unit: '1', value: results.massBalance.relativeError, better: null },

@@ -16,7 +16,7 @@ import { AuthStore } from '../../core/auth/auth-store';
 import { Chart } from '../designs/chart';
 import { DesignsApi } from '../designs/designs-api';
 import { show, showRelative } from '../designs/format';
-import { OVERLAY_LAYOUT, overlayTraces } from '../designs/plots';
+import { OVERLAY_LAYOUT, overlayTraces, UPTAKE_OVERLAY_LAYOUT, uptakeOverlayTraces } from '../designs/plots';
 import { variantRoute } from '../designs/stack/stack-links';
 import { errorText } from '../designs/variant-editor';
 import { CompareApi } from './compare-api';
@@ -71,6 +71,11 @@ export class ComparePage {
     return c ? overlayTraces(c.variants) : [];
   });
   protected readonly overlayLayout = OVERLAY_LAYOUT;
+  protected readonly uptakeOverlay = computed(() => {
+    const c = this.comparison();
+    return c ? uptakeOverlayTraces(c.variants) : [];
+  });
+  protected readonly uptakeLayout = UPTAKE_OVERLAY_LAYOUT;
   protected readonly csvUrl = computed(() => this.api.csvUrl(this.ids(), this.baselineId()));
 
   // Picker (when no selection is in the address).

@@ -7,7 +7,7 @@ import { firstValueFrom } from 'rxjs';
 import { CONFIGURATION_LABELS, type ComparisonReport } from 'wick-core';
 import { Chart } from '../designs/chart';
 import { show, showInputValue, showRelative } from '../designs/format';
-import { OVERLAY_LAYOUT, overlayTraces } from '../designs/plots';
+import { OVERLAY_LAYOUT, overlayTraces, UPTAKE_OVERLAY_LAYOUT, uptakeOverlayTraces } from '../designs/plots';
 import { errorText } from '../designs/variant-editor';
 import { CompareApi } from './compare-api';
 import { parseIds } from './compare-page';
@@ -53,7 +53,12 @@ import { parseIds } from './compare-page';
         </table>
 
         <h2>Curves</h2>
-        <div class="wick-report-block"><wick-chart [data]="overlay()" [layout]="overlayLayout" label="Wetted length against time for the compared variants" /></div>
+        @if (overlay().length) {
+          <div class="wick-report-block"><wick-chart [data]="overlay()" [layout]="overlayLayout" label="Wetted length against time for the compared variants" /></div>
+        }
+        @if (uptakeOverlay().length) {
+          <div class="wick-report-block"><wick-chart [data]="uptakeOverlay()" [layout]="uptakeLayout" label="Liquid absorbed and standing on the surface against time for the compared stacks" /></div>
+        }
 
         <h2>Decisions</h2>
         @for (d of r.comparison.decisions; track d.id) {
@@ -96,6 +101,8 @@ export class CompareReportPage {
   protected readonly showRelative = showRelative;
   protected readonly overlayLayout = OVERLAY_LAYOUT;
   protected readonly overlay = computed(() => overlayTraces(this.report()?.comparison.variants ?? []));
+  protected readonly uptakeLayout = UPTAKE_OVERLAY_LAYOUT;
+  protected readonly uptakeOverlay = computed(() => uptakeOverlayTraces(this.report()?.comparison.variants ?? []));
   protected readonly baselineName = computed(() => {
     const c = this.report()?.comparison;
     return c?.variants.find((v) => v.id === c.baselineId)?.name ?? '';

@@ -10,6 +10,8 @@ const DISPLAY: Readonly<Record<string, string>> = {
   'kg/s': 'g/s',
   'kg/m^2': 'g/m^2',
   'kg/kg': 'g/g',
+  'm^3': 'mL',
+  'm^3/m^3': '%',
   '1': '1',
   'N/m': 'mN/m',
   'Pa s': 'mPa s',
@@ -37,7 +39,8 @@ export function showFigure(f: Pick<KeyFigure, 'value' | 'unit'>): string {
 /** A relative change as a signed percentage. */
 export function showRelative(r: number | null): string {
   if (r === null || !Number.isFinite(r)) return '';
-  const pct = r * 100;
+  // Below round-off of the figures compared (e.g. two runs that differ only in the last bits): no change.
+  const pct = Math.abs(r) < 1e-9 ? 0 : r * 100;
   const size = Math.abs(pct);
   const digits = size === 0 ? '0' : size >= 100 ? Math.round(size).toLocaleString('en-GB') : String(Number(size.toPrecision(2)));
   return `${pct > 0 ? '+' : pct < 0 ? '−' : '±'}${digits} %`;

@@ -145,6 +145,26 @@ export function overlayTraces(variants: readonly CompareVariant[]): PlotTrace[] 
     }));
 }
 
+/** Compare: each layered stack's liquid taken in (solid) and standing on the surface (dashed) against time, in mL. */
+export function uptakeOverlayTraces(variants: readonly CompareVariant[]): PlotTrace[] {
+  const ml = (v: readonly number[]) => v.map((x) => x * 1e6);
+  return variants
+    .filter((v) => v.uptake)
+    .flatMap((v, i) => {
+      const color = PALETTE[i % PALETTE.length];
+      const label = `${v.name}${v.usesUnapproved ? ' (unapproved material)' : ''}`;
+      return [
+        { x: v.uptake!.time.map((t) => t / 60), y: ml(v.uptake!.absorbed), type: 'scatter', mode: 'lines', line: { color, width: 2 }, name: `${label}: absorbed` },
+        { x: v.uptake!.time.map((t) => t / 60), y: ml(v.uptake!.surfaceLiquid), type: 'scatter', mode: 'lines', line: { color, width: 1.5, dash: 'dash' }, name: `${label}: on the surface` },
+      ];
+    });
+}
+
+export const UPTAKE_OVERLAY_LAYOUT: PlotLayout = {
+  xaxis: { title: { text: 'Time (min)' } },
+  yaxis: { title: { text: 'Liquid (mL)' }, rangemode: 'tozero' },
+};
+
 export const OVERLAY_LAYOUT: PlotLayout = {
   xaxis: { title: { text: 'Time (s)' } },
   yaxis: { title: { text: 'Wetted length or radius (mm)' }, rangemode: 'tozero' },
