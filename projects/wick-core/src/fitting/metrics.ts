@@ -117,7 +117,7 @@ export function predictionError(input: PredictionErrorInput): PredictionErrorRes
     if (tm === null || tp === null) {
       warnings.push({
         code: 'height-not-reached',
-        message: `Height ${h} is not reached by the ${tm === null ? 'measured' : 'predicted'} curve within its record.`,
+        message: `Height ${+(h * 1e3).toPrecision(3)} mm is not reached by the ${tm === null ? 'measured' : 'predicted'} curve within its record.`,
       });
     }
     const error = tm !== null && tp !== null ? tp - tm : null;
