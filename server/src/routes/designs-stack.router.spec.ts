@@ -167,4 +167,19 @@ describe('design workspace routes: stack variants', () => {
     expect(report.inputRows.some((r) => r.path === 'layers[0].structure.thickness')).toBeTrue();
     expect(report.keyFigures[0].key).toBe('acquisition@1');
   });
+  it('when a stack overflows, then its unreached gushes read "not reached" in the comparison and in the CSV', async () => {
+    // 3 × 60 mL into 80 cm² is more than the example stack's pore volume there: the later gushes stay standing.
+    const flooded = { ...STACK_VARIANT_EXAMPLE, insult: { ...STACK_VARIANT_EXAMPLE.insult, volume: 60e-6, rate: 10e-6 } };
+    const a = (await engineer.post(`/api/designs/${designId}/variants`).send({ name: 'Flooded stack', inputs: flooded }).expect(201)).body as SavedStack;
+    const b = (await engineer.post(`/api/designs/${designId}/variants`).send({ name: 'Reference stack', inputs: STACK_VARIANT_EXAMPLE }).expect(201)).body as SavedStack;
+    const c = (await engineer.get(`/api/compare?variants=${a.id},${b.id}&baseline=${b.id}`).expect(200)).body as CompareResponse;
+    const third = c.figures.find((f) => f.key === 'acquisition@3')!;
+    expect(third.values[0].value).toBeNull();
+    expect(third.values[0].note).toBe('not reached');
+    expect(third.values[1].value).not.toBeNull();
+    // A reached gush beats one that never is.
+    expect(third.values[1].best).toBeTrue();
+    const rows = parse((await engineer.get(`/api/variants/${a.id}/export.csv?what=summary`).expect(200)).text) as string[][];
+    expect(rows.find((r) => r[0] === 'result' && r[1] === 'Acquisition time, gush 3')?.[2]).toBe('not reached');
+  });
 });

@@ -69,7 +69,7 @@ export function variantCsv(v: VariantDetail): string {
   );
   const { inputs, results } = kindsOf(v);
   for (const r of describeAnyInputs(inputs, results)) rows.push(['input', r.label, r.value, r.unit, r.source]);
-  for (const f of anyKeyFigures(results)) rows.push(['result', f.label, f.value, f.unit, '']);
+  for (const f of anyKeyFigures(results)) rows.push(['result', f.label, f.value ?? f.nullMeans ?? null, f.unit, '']);
   if (isStackResults(results)) {
     for (const l of results.layers) rows.push(['result', `${l.name}: permeability from`, l.permeabilityLabel, '', l.permeabilitySource ?? '']);
   } else if (results.status === 'ok') {
@@ -157,7 +157,7 @@ export async function exportComparisonCsv(
     meta('Uses unapproved material', (v) => v.usesUnapproved),
   ];
   for (const f of c.figures) {
-    rows.push([f.label, f.unit, f.better ?? '', ...f.values.flatMap((x) => [x.value, x.delta, x.best])]);
+    rows.push([f.label, f.unit, f.better ?? '', ...f.values.flatMap((x) => [x.value ?? x.note ?? null, x.delta, x.best])]);
   }
   rows.push(['Safety note', SAFETY_NOTE, '', ...c.variants.flatMap(() => ['', '', ''])]);
   await ctx.sequelize.transaction((tx) =>

@@ -55,6 +55,28 @@ describe('keyFigures and compareKeyFigures', () => {
     const porosity = table.find((f) => f.key === 'porosity')!;
     expect(porosity.values.some((v) => v.best)).toBeFalse();
   });
+
+  it('says "not reached" for a target height a variant never reaches, and the one that reaches it is best', () => {
+    // A poorly wetted web (θ = 85°) levels off far below 20 mm; the well-wetted one reaches it (Jurin: h ∝ cos θ).
+    const low = { id: 1, results: evaluateVariant(variant(0.001, 85)) };
+    const high = { id: 2, results: evaluateVariant(variant(0.001, 20)) };
+    const t = compareKeyFigures([low, high], 1).find((f) => f.key === 'timeTo@0.02')!;
+    const [a, b] = t.values;
+    expect(a.value).toBeNull();
+    expect(a.note).toBe('not reached');
+    expect(a.best).toBeFalse();
+    expect(b.value).not.toBeNull();
+    expect(b.note).toBeUndefined();
+    expect(b.best).toBeTrue();
+  });
+
+  it('marks no best when only one variant has a figure at all (the others lack it, rather than miss it)', () => {
+    const only = { id: 1, results: evaluateVariant(variant(0.001)) };
+    const other = { id: 2, results: evaluateVariant({ ...variant(0.001), checkpoints: { heights: [], times: [60, 600] } }) };
+    const t = compareKeyFigures([only, other], 1).find((f) => f.key === 'timeTo@0.01')!;
+    expect(t.values.map((v) => v.best)).toEqual([false, false]);
+    expect(t.values[1].note).toBeUndefined();
+  });
 });
 
 describe('readVariantInputs and describeInputs', () => {

@@ -15,6 +15,11 @@ export interface KeyFigure {
   readonly value: number | null;
   /** Which direction counts as better for marking the best variant; null when neither does. */
   readonly better: BetterDirection;
+  /**
+   * What a null `value` says, e.g. 'not reached' for a time to a target never reached; absent when null only
+   * means "not available". A 'not reached' time counts as worse than any reached one when marking the best.
+   */
+  readonly nullMeans?: 'not reached';
 }
 
 const fmtMm = (m: number) => `${+(m * 1000).toPrecision(4)} mm`;
@@ -39,6 +44,7 @@ export function keyFigures(results: VariantResults): KeyFigure[] {
       unit: 's',
       value: c.time,
       better: 'lower',
+      nullMeans: 'not reached',
     });
   }
   const last = results.atTimes[results.atTimes.length - 1];
@@ -72,6 +78,8 @@ export interface ComparedValue {
   /** delta / |baseline| (null when the baseline is missing or zero). */
   readonly relativeDelta: number | null;
   readonly best: boolean;
+  /** What a null value says for this variant ('not reached'); absent when the value is given or unavailable. */
+  readonly note?: 'not reached';
 }
 
 export interface ComparedFigure {
@@ -112,9 +120,19 @@ export function compareKeyFigures<R = VariantResults>(
   return order.map((o) => {
     const base = baseline?.figures.get(o.key)?.value ?? null;
     const raw = perVariant.map((v) => v.figures.get(o.key)?.value ?? null);
+    const notes = perVariant.map((v) => {
+      const f = v.figures.get(o.key);
+      return f && f.value === null ? f.nullMeans : undefined;
+    });
     const present = raw.filter((x): x is number => x !== null);
+    // A target never reached is the worst time of all: it still makes a reached one the best.
+    const unreached = o.better === 'lower' ? notes.filter((n) => n === 'not reached').length : 0;
     const target =
-      o.better === null || present.length < 2 ? null : o.better === 'higher' ? Math.max(...present) : Math.min(...present);
+      o.better === null || present.length === 0 || present.length + unreached < 2
+        ? null
+        : o.better === 'higher'
+          ? Math.max(...present)
+          : Math.min(...present);
     return {
       ...o,
       values: perVariant.map((v, i) => {
@@ -126,6 +144,7 @@ export function compareKeyFigures<R = VariantResults>(
           delta,
           relativeDelta: delta !== null && base !== null && base !== 0 ? delta / Math.abs(base) : null,
           best: target !== null && value !== null && value === target,
+          ...(notes[i] ? { note: notes[i] } : {}),
         };
       }),
     };

@@ -341,6 +341,7 @@ export function stackKeyFigures(results: StackVariantResults): KeyFigure[] {
     unit: 's',
     value: ins.acquisitionTime,
     better: 'lower',
+    nullMeans: 'not reached',
   }));
   const t = results.totals;
   const upper = results.upperLayers === 1 ? (results.layers[0]?.name ?? 'top layer') : `top ${results.upperLayers} layers`;

@@ -45,7 +45,7 @@ import { parseIds } from './compare-page';
               <tr>
                 <td>{{ f.label }}</td>
                 @for (x of f.values; track x.variantId) {
-                  <td class="num" [class.best]="x.best">{{ show(x.value, f.unit) }}{{ x.best ? ' ★' : '' }} {{ showRelative(x.relativeDelta) }}</td>
+                  <td class="num" [class.best]="x.best">{{ x.note ?? show(x.value, f.unit) }}{{ x.best ? ' ★' : '' }} {{ showRelative(x.relativeDelta) }}</td>
                 }
               </tr>
             }

@@ -32,8 +32,8 @@ export function show(si: number | null | undefined, siUnit: string, significant 
   }
 }
 
-export function showFigure(f: Pick<KeyFigure, 'value' | 'unit'>): string {
-  return show(f.value, f.unit);
+export function showFigure(f: Pick<KeyFigure, 'value' | 'unit' | 'nullMeans'>): string {
+  return f.value === null && f.nullMeans ? f.nullMeans : show(f.value, f.unit);
 }
 
 /** A relative change as a signed percentage. */

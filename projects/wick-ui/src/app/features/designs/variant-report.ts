@@ -7,7 +7,7 @@ import { firstValueFrom } from 'rxjs';
 import { CONFIGURATION_LABELS, type VariantReport } from 'wick-core';
 import { Chart } from './chart';
 import { DesignsApi } from './designs-api';
-import { show, showInputValue } from './format';
+import { show, showFigure, showInputValue } from './format';
 import { uptakeLayout, uptakeTraces } from './plots';
 import { errorText } from './variant-editor';
 
@@ -60,7 +60,7 @@ import { errorText } from './variant-editor';
         <table data-testid="report-figures">
           <tbody>
             @for (f of r.keyFigures; track f.key) {
-              <tr><td>{{ f.label }}</td><td class="num">{{ show(f.value, f.unit) }}</td></tr>
+              <tr><td>{{ f.label }}</td><td class="num">{{ showFigure(f) }}</td></tr>
             }
           </tbody>
         </table>
@@ -98,6 +98,7 @@ export class VariantReportPage {
   protected readonly error = signal<string | null>(null);
   protected readonly labels = CONFIGURATION_LABELS;
   protected readonly show = show;
+  protected readonly showFigure = showFigure;
   protected readonly curve = computed(() => {
     const r = this.report()?.variant.results;
     return r?.status === 'ok' ? { data: uptakeTraces(r), layout: uptakeLayout(r) } : null;
