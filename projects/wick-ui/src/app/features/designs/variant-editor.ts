@@ -37,6 +37,7 @@ import { show } from './format';
 import { LibraryLookup, type LibraryChoice } from './library-lookup';
 import { evaluateLive, type LiveResult } from './live-evaluation';
 import { MASS_LAYOUT, PSD_LAYOUT, massTraces, psdTraces, tornadoLayout, tornadoTraces, uptakeLayout, uptakeTraces } from './plots';
+import { LiquidCard } from './liquid-card';
 import { QuantityListField } from './quantity-list-field';
 import { UnitInput } from '../../shared/unit-input/unit-input';
 import {
@@ -92,6 +93,7 @@ const STRUCTURE_FIELDS = [
     MatTooltipModule,
     Chart,
     QuantityListField,
+    LiquidCard,
     UnitInput,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -115,7 +117,6 @@ export class VariantEditor {
   protected readonly configurationLabels = CONFIGURATION_LABELS;
   protected readonly correlations = VARIANT_CORRELATIONS;
   protected readonly correlationLabels = VARIANT_CORRELATION_LABELS;
-  protected readonly builtInLiquids = BUILT_IN_LIQUIDS;
   protected readonly toleranceFields = TOLERANCE_FIELDS;
   protected readonly safetyNote = SAFETY_NOTE;
   protected readonly show = show;

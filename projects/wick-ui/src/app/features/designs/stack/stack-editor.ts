@@ -2,7 +2,6 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, input, si
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, type AbstractControl } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -23,6 +22,7 @@ import {
 import { AuthStore } from '../../../core/auth/auth-store';
 import { DesignsApi } from '../designs-api';
 import { LibraryLookup, type LibraryChoice } from '../library-lookup';
+import { LiquidCard } from '../liquid-card';
 import { errorText } from '../variant-editor';
 import { UnitInput } from '../../../shared/unit-input/unit-input';
 import { controlAt, layerGroup, layerValueFromLibrary, patchStackForm, stackForm, toStackInputs } from './stack-form';
@@ -47,7 +47,6 @@ type SavedStack = Omit<VariantDetail, 'inputs' | 'results'> & { inputs: StackVar
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
-    MatButtonToggleModule,
     MatCardModule,
     MatFormFieldModule,
     MatIconModule,
@@ -55,6 +54,7 @@ type SavedStack = Omit<VariantDetail, 'inputs' | 'results'> & { inputs: StackVar
     MatProgressBarModule,
     MatSelectModule,
     StackLayerCard,
+    LiquidCard,
     StackResults,
     UnitInput,
   ],
@@ -77,7 +77,6 @@ export class StackEditor {
   protected readonly runner = inject(StackRun);
 
   protected readonly form = stackForm(this.fb);
-  protected readonly builtInLiquids = BUILT_IN_LIQUIDS;
   protected readonly maxLayers = STACK_DEFAULTS.maxLayers;
   protected readonly canEdit = computed(() => this.auth.can('designs:edit'));
 
@@ -214,8 +213,13 @@ export class StackEditor {
   }
 
   protected async chooseLibraryLiquid(id: number): Promise<void> {
-    const { definition, pinned } = await firstValueFrom(this.library.liquid(id));
-    this.form.controls.liquid.patchValue({ definition, pinned });
+    try {
+      const { definition, pinned } = await firstValueFrom(this.library.liquid(id));
+      this.form.controls.liquid.patchValue({ definition, pinned });
+    } catch (e) {
+      this.form.controls.liquid.patchValue({ libraryId: null, definition: null, pinned: null });
+      this.message.set({ kind: 'error', text: `This liquid could not be loaded from the library: ${errorText(e)}` });
+    }
   }
 
   // ── run and save ─────────────────────────────────────────────────────────────────────────────────────────
