@@ -135,6 +135,11 @@ function settingsOf(mode: WindowMode, start: number | null, end: number | null, 
               <dd>{{ interval(c.staticRadius, 'um') }}</dd>
               <dt>Dynamic effective radius</dt>
               <dd>{{ interval(c.dynamicRadius, 'um') }}</dd>
+              <dd class="hint">
+                Static from the equilibrium (r = 2γ cos θ / ρ g h_eq, vertical), dynamic from the rate (r = 4ηa / γ cos θ). In a
+                fibrous layer the dynamic one is usually far smaller: it carries the flow resistance of the pore
+                network (tortuosity, porosity), not only the pore size.
+              </dd>
             }
             @if (g.porousLayer; as p) {
               <dt>Permeability (in-plane)</dt>
@@ -173,6 +178,7 @@ function settingsOf(mode: WindowMode, start: number | null, end: number | null, 
     dl { display: grid; grid-template-columns: max-content 1fr; gap: 4px 16px; margin: 0; }
     dt { color: var(--mat-sys-on-surface-variant); }
     dd { margin: 0; }
+    dd.hint { grid-column: 1 / -1; color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
     .warning { color: var(--mat-sys-tertiary); font: var(--mat-sys-body-small); }
     @media (max-width: 800px) { .numbers, .residuals { grid-template-columns: 1fr; } }
   `,
