@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -98,9 +98,22 @@ export class ContactAnglePage {
   });
   protected readonly warnings = computed(() => [...(this.result()?.warnings ?? []), ...(this.result()?.result.warnings ?? [])].map((w) => w.message));
 
+  /** Query parameters: the sets to start with (`?reference=3&test=4`), e.g. from a set's page. */
+  readonly referenceParam = input<string | undefined>(undefined, { alias: 'reference' });
+  readonly testParam = input<string | undefined>(undefined, { alias: 'test' });
+
   constructor() {
     void firstValueFrom(this.api.sets())
-      .then((s) => this.sets.set(s))
+      .then((s) => {
+        this.sets.set(s);
+        const has = (v: string | undefined) => (v && s.some((x) => x.id === Number(v)) ? Number(v) : null);
+        this.reference.set(has(this.referenceParam()));
+        const test = has(this.testParam());
+        const choices = this.testChoices();
+        // A test set named, or the only one of the reference's web and quantity.
+        if (test !== null && choices.some((x) => x.id === test)) this.test.set(test);
+        else if (this.reference() !== null && choices.length === 1) this.test.set(choices[0].id);
+      })
       .catch((e: unknown) => this.problem.set(apiProblem(e).message));
   }
 

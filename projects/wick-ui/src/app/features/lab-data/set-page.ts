@@ -33,7 +33,8 @@ import { LAB_UNITS, displayUnit, orientationLabel, show } from './lab-format';
         <h1>{{ s.name }}</h1>
         <p class="facts">
           <a [routerLink]="['/materials/webs', s.webId]">{{ s.webName }}</a> · {{ s.liquidName }} · {{ orientationLabel(s.orientation) }},
-          {{ s.measurement }} · {{ s.runCount }} run(s)
+          {{ s.measurement }} · {{ s.runCount }} run(s) ·
+          <a routerLink="/lab-data/contact-angle" [queryParams]="{ reference: s.id }" data-test="contact-angle-link">contact angle with this set as the reference</a>
         </p>
         @if (s.notes) {
           <p>{{ s.notes }}</p>
