@@ -3,7 +3,8 @@
  *
  * Standalone (no database): the real compute router on a real HTTP port, with a stand-in for the session that
  * `npm start` provides (a signed-in engineer), so the time measured is JSON parsing, validation, wick-core's
- * runBatch over `design-variant` requests and the JSON answer. The variants are the shared fixture's cases
+ * runModel over `design-variant` requests on the server's compute threads (WICK_COMPUTE_WORKERS, default the
+ * cores) and the JSON answer. The variants are the shared fixture's cases
  * (four of six with tolerance bands of 1,000 samples × 400 curve points), repeated to 100.
  * Run: `npm run bench -- batch` (or `node --import tsx server/bench/batch.bench.ts` with TSX_TSCONFIG_PATH=server/tsconfig.json).
  */

@@ -1,6 +1,7 @@
 import { Router } from 'express';
-import { listModels, runBatch, runModel, type BatchComputeRequest, type ComputeRequest } from 'wick-core';
+import { listModels, runModel, type BatchComputeRequest, type ComputeRequest } from 'wick-core';
 import type { AppDeps } from '../app';
+import { computePool } from '../compute/compute-pool';
 import { documentedRoutes } from '../openapi/documented-routes';
 import { batchComputeRequestSchema, computeRequestSchema } from '../schemas/designs';
 
@@ -37,8 +38,9 @@ export function computeRouter(_deps: AppDeps): Router {
       summary: 'Run many model requests in one call (e.g. 100 design variants)',
       tags,
       body: batchComputeRequestSchema,
+      description: 'The requests are shared out over the server’s compute threads; the answers come back in request order.',
       responses: { 200: { description: 'BatchComputeResponse: one ComputeResponse per request, in order.' } },
-      handler: (_req, res) => void res.json(runBatch(res.locals['body'] as BatchComputeRequest)),
+      handler: async (_req, res) => void res.json(await computePool().runBatch(res.locals['body'] as BatchComputeRequest)),
     },
   ]);
 }
