@@ -282,6 +282,29 @@ describe('evaluateVariant: tolerances', () => {
     expect(Array.from(mine.curve.p50)).toEqual(Array.from(ref.p50));
     expect(Array.from(mine.curve.p90)).toEqual(Array.from(ref.p90));
   });
+
+  it('percentileBands equals monteCarloCurve when curves level off at different points, or pause and rise again', () => {
+    // Curves clamped at a strip length L (each sample reaches it at its own time) and held flat over a
+    // middle stretch: the statistics skip only the points after the last change of any sample.
+    const times = curveTimes(200, 120);
+    const L = 0.05;
+    const evaluate = (p: { a: number; b: number }, out = new Float64Array(times.length)) => {
+      gravityCurve(p.a, p.b, times, out);
+      for (let i = 40; i < 60; i++) out[i] = out[39];
+      for (let i = 0; i < out.length; i++) out[i] = Math.min(out[i], L);
+      return out;
+    };
+    const nominal = { a: 1e-4, b: 2e-3 };
+    const tol = { a: { kind: 'normal' as const, sd: 3e-5, lower: 0 }, b: { kind: 'uniform' as const, min: 1e-3, max: 3e-3 } };
+    const mine = percentileBands({ points: 120, scalars: 0, evaluate: (p, out) => void evaluate(p, out) }, nominal, tol, 500, 9);
+    const ref = monteCarloCurve(evaluate, nominal, tol, { samples: 500, seed: 9 });
+    expect(Array.from(mine.curve.p10)).toEqual(Array.from(ref.p10));
+    expect(Array.from(mine.curve.p50)).toEqual(Array.from(ref.p50));
+    expect(Array.from(mine.curve.p90)).toEqual(Array.from(ref.p90));
+    // Some samples reach L and some do not within the record (h_eq = a/b straddles it): both kinds are present.
+    expect(mine.curve.p90[119]).toBe(L);
+    expect(mine.curve.p10[119]).toBeLessThan(L);
+  });
 });
 
 describe('evaluateVariant: invalid inputs name their field', () => {

@@ -555,7 +555,8 @@ function tolerancesOutputs(
         radialCurveFast(x.a, r0, times, curve);
       } else {
         gravityCurveFast(x.a, x.b, times, curve, scratch);
-        if (L !== undefined) for (let i = 0; i < m; i++) if (curve[i] > L) curve[i] = L;
+        // A rising curve that ends below the strip's length never reached it: no clamping pass.
+        if (L !== undefined && !(curve[m - 1] < L * (1 - 1e-9))) for (let i = 0; i < m; i++) curve[i] = Math.min(curve[i], L);
       }
       for (let j = 0; j < scalarDefs.length; j++) scalars[j] = scalarDefs[j].get(x);
     },
