@@ -74,7 +74,8 @@ describe('design workspace routes: stack variants', () => {
 
     const design = (await engineer.get(`/api/designs/${designId}`).expect(200)).body as DesignSummary;
     const listed = design.variants.find((v) => v.id === saved.id)!;
-    expect(listed.headline.map((f) => f.key).sort()).toEqual(['acquisition@1', 'capacityUsed', 'rewetIndicator']);
+    // The last of the three gushes tells constructions apart, so the list shows that one.
+    expect(listed.headline.map((f) => f.key).sort()).toEqual(['acquisition@3', 'capacityUsed', 'rewetIndicator']);
   });
 
   it('when stack inputs are invalid, then the answer names the field', async () => {
@@ -181,5 +182,9 @@ describe('design workspace routes: stack variants', () => {
     expect(third.values[1].best).toBeTrue();
     const rows = parse((await engineer.get(`/api/variants/${a.id}/export.csv?what=summary`).expect(200)).text) as string[][];
     expect(rows.find((r) => r[0] === 'result' && r[1] === 'Acquisition time, gush 3')?.[2]).toBe('not reached');
+    // The design's list keeps the unreached gush in the headline, saying so.
+    const design = (await engineer.get(`/api/designs/${designId}`).expect(200)).body as DesignSummary;
+    const last = design.variants.find((v) => v.id === a.id)!.headline.find((f) => f.key === 'acquisition@3')!;
+    expect([last.value, last.nullMeans]).toEqual([null, 'not reached']);
   });
 });

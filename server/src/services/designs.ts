@@ -154,15 +154,16 @@ const person = (map: Map<number, PersonRef>, id: number): PersonRef => map.get(i
 // ── variants ──────────────────────────────────────────────────────────────────────────────────────────────────
 
 /**
- * Headline figures for lists: equilibrium height, the last reading, capacity per mass; for a stack the first
- * gush's acquisition time, the rewet indicator and the capacity used.
+ * Headline figures for lists: equilibrium height, the last reading, capacity per mass; for a stack the last
+ * gush's acquisition time (the one that tells constructions apart; "not reached" when it is), the rewet
+ * indicator and the capacity used.
  */
 function headline(v: Variant) {
   const r = v.results;
   const figs = anyKeyFigures(r);
   if (isStackResults(r)) {
-    const wanted = new Set(['acquisition@1', 'rewetIndicator', 'capacityUsed']);
-    return figs.filter((f) => wanted.has(f.key) && f.value !== null);
+    const wanted = new Set([`acquisition@${Math.max(1, r.insults.length)}`, 'rewetIndicator', 'capacityUsed']);
+    return figs.filter((f) => wanted.has(f.key) && (f.value !== null || f.nullMeans !== undefined));
   }
   const last = r.status === 'ok' ? r.atTimes[r.atTimes.length - 1] : undefined;
   const wanted = new Set(['equilibriumHeight', 'capacityPerMass', ...(last ? [`height@${last.time}`] : [])]);
