@@ -5,9 +5,9 @@
  * Sampling is the tolerance family's, draw for draw: inputs sorted by name, each prepared with
  * `prepareTolerance` and drawn from `createRng(seed)` in that order, so the samples, and hence the
  * percentiles, are exactly those of `monteCarloCurve` (the spec checks equality). What differs is the
- * bookkeeping: curves are stored sample-major (contiguous writes), only the points before the band levels
- * off are transposed for the statistics, and each point's samples are kept in the order of the previous
- * point and re-sorted by insertion. Wicking curves of one variant rarely cross, so
+ * bookkeeping: curves are stored point-major through a small sample-major block, the points after the band
+ * levels off copy the last statistics, and each point's samples are kept in the order of the previous point
+ * and re-sorted by insertion. Wicking curves of one variant rarely cross, so
  * the re-sort is almost linear, where a fresh quickselect per point costs several passes.
  * Percentiles are Hyndman & Fan definition 7 (the tolerance family's `percentileSorted`);
  * JCGM 101:2008 §7 for the method. Samples the model refuses (DomainError) are counted and left out.
@@ -39,21 +39,20 @@ export interface BandResult {
 }
 
 const MAX_VALUES = 10_000_000;
-/** Samples transposed together from the sample-major curves into the point-major store (cache-sized tiles). */
+/** Samples evaluated before their curves are copied into the point-major store (a cache-sized block). */
 const BLOCK = 32;
 
 /**
- * Two reusable stores for the sample curves (as computed, and transposed for the statistics): a fresh 8 MB
- * array on every keystroke costs more in garbage collection than the statistics. Never escape this module;
- * JavaScript runs one call at a time.
+ * One reusable store for the sample curves: a fresh 8 MB array on every keystroke costs more in garbage
+ * collection than the statistics. Never escapes this module; JavaScript runs one call at a time.
  */
-const shared = [new Float64Array(0), new Float64Array(0)];
+let shared = new Float64Array(0);
 /** Largest store kept between calls (16 MB); bigger runs get their own array. */
 const KEEP = 2_000_000;
-function scratch(which: 0 | 1, size: number): Float64Array {
+function scratch(size: number): Float64Array {
   if (size > KEEP) return new Float64Array(size);
-  if (shared[which].length < size) shared[which] = new Float64Array(size);
-  return shared[which];
+  if (shared.length < size) shared = new Float64Array(size);
+  return shared;
 }
 
 /**
@@ -80,19 +79,31 @@ export function percentileBands<K extends string>(
   );
   const rng = createRng(seed);
   const work = { ...nominal } as Record<K, number>;
-  // The valid samples' curves one after another, as the model writes them.
-  const curves = scratch(0, samples * m);
+  // Point-major store (each point's samples contiguous, as the statistics read them), filled through a
+  // small sample-major block so that neither the writes nor the reads stride across megabytes.
+  const store = scratch(samples * m);
+  const block = new Float64Array(BLOCK * m);
+  const views = Array.from({ length: BLOCK }, (_, k) => block.subarray(k * m, (k + 1) * m));
   const scalarStore = new Float64Array(samples * q);
   const scal = new Float64Array(q);
   let n = 0;
+  let inBlock = 0;
   let failed = 0;
   let firstMessage: string | undefined;
   // Largest index at which any valid curve still changes: beyond it every point's samples equal the previous
-  // point's (a levelled-off band), so those points need neither the store nor statistics of their own.
+  // point's (a levelled-off band), so those points need no statistics of their own.
   let lastChange = 0;
+  const flush = () => {
+    for (let i = 0; i < m; i++) {
+      const row = i * samples + n;
+      for (let k = 0; k < inBlock; k++) store[row + k] = block[k * m + i];
+    }
+    n += inBlock;
+    inBlock = 0;
+  };
   for (let s = 0; s < samples; s++) {
     for (let j = 0; j < prepared.length; j++) work[prepared[j].name as K] = prepared[j].sample(rng);
-    const curve = curves.subarray(n * m, (n + 1) * m);
+    const curve = views[inBlock];
     try {
       model.evaluate(work, curve, scal);
     } catch (e) {
@@ -116,9 +127,10 @@ export function percentileBands<K extends string>(
       continue;
     }
     if (last > lastChange) lastChange = last;
-    scalarStore.set(scal, n * q);
-    n++;
+    scalarStore.set(scal, (n + inBlock) * q);
+    if (++inBlock === BLOCK) flush();
   }
+  flush();
   if (n < 2) {
     throw new DomainError(
       'insufficient-data',
@@ -134,18 +146,6 @@ export function percentileBands<K extends string>(
         `${failed} of ${samples} samples (${((100 * failed) / samples).toFixed(1)} %) fell outside the model's validity ` +
         `and were left out${firstMessage ? ` (first: ${firstMessage})` : ''}; the bands describe the remaining samples only.`,
     });
-  }
-
-  // Point-major store (each point's samples contiguous, as the statistics read them) for the points that
-  // change, transposed in tiles of BLOCK samples so that neither side strides across megabytes.
-  const rows = lastChange + 1;
-  const store = scratch(1, samples * rows);
-  for (let s0 = 0; s0 < n; s0 += BLOCK) {
-    const s1 = Math.min(n, s0 + BLOCK);
-    for (let i = 0; i < rows; i++) {
-      const row = i * samples;
-      for (let k = s0; k < s1; k++) store[row + k] = curves[k * m + i];
-    }
   }
 
   const p10 = new Float64Array(m);

@@ -288,7 +288,7 @@ describe('evaluateVariant: tolerances', () => {
     // middle stretch: the statistics skip only the points after the last change of any sample.
     const times = curveTimes(200, 120);
     const L = 0.05;
-    const evaluate = (p: { a: number; b: number }, out = new Float64Array(times.length)) => {
+    const evaluate = (p: { a: number; b: number }, out: Float64Array<ArrayBufferLike> = new Float64Array(times.length)) => {
       gravityCurve(p.a, p.b, times, out);
       for (let i = 40; i < 60; i++) out[i] = out[39];
       for (let i = 0; i < out.length; i++) out[i] = Math.min(out[i], L);
