@@ -1,9 +1,11 @@
 // `npm run bench`: every benchmark script (projects/wick-core/bench/*.bench.ts, server/bench/*.bench.ts), one after
-// another on one core. Benchmarks report; they print TARGET lines but never fail the run.
+// another, then the browser benchmark of the design editor against a stack of its own (its own database and
+// ports, stopped afterwards). Benchmarks report; they print TARGET lines but never fail the run.
+// `npm run bench -- batch editor` runs only the benchmarks whose file names contain those words.
 import { spawnSync } from 'node:child_process';
-import { existsSync, readdirSync } from 'node:fs';
+import { existsSync, readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { ROOT, ensureDependencies, log } from './bootstrap.mjs';
+import { ROOT, buildUi, ensureChromium, ensureDependencies, ensurePostgres, freePortBase, log, migrateAndSeed } from './bootstrap.mjs';
 
 ensureDependencies();
 const dirs = [join(ROOT, 'projects', 'wick-core', 'bench'), join(ROOT, 'server', 'bench')];
@@ -26,5 +28,48 @@ for (const dir of dirs) {
     if (r.status !== 0) targets.push(`TARGET ${file}: did not finish (exit ${r.status}) FAIL`);
   }
 }
+// The design editor in a real browser (projects/wick-ui/e2e/editor.bench.ts).
+if (!only.length || only.some((o) => 'editor.bench.ts'.includes(o))) {
+  log('— editor.bench.ts (headless Chromium against a stack of its own) —');
+  const { startStack, stackPorts } = await import('./stack.mjs');
+  const chrome = ensureChromium();
+  const pg = await ensurePostgres();
+  const db = `wickwright_bench_${process.pid}`;
+  let url;
+  if (pg.external) url = pg.url();
+  else {
+    pg.dropDatabase(db);
+    pg.createDatabase(db);
+    url = pg.url(db);
+  }
+  const stateDir = join(ROOT, '.wick', `bench-state-${process.pid}`);
+  let stack;
+  try {
+    migrateAndSeed(url);
+    buildUi();
+    const ports = stackPorts(await freePortBase(4760));
+    stack = await startStack({ databaseUrl: url, ports, env: { WICK_STATE_DIR: stateDir, WICK_LOG_REQUESTS: '0' } });
+    const r = spawnSync(process.execPath, ['--import', 'tsx', join(ROOT, 'projects', 'wick-ui', 'e2e', 'editor.bench.ts')], {
+      cwd: ROOT,
+      encoding: 'utf8',
+      env: { ...process.env, WICK_E2E_URL: stack.appUrl, CHROME_BIN: chrome },
+      maxBuffer: 16 * 1024 * 1024,
+    });
+    process.stdout.write(r.stdout);
+    process.stderr.write(r.stderr);
+    targets.push(...r.stdout.split('\n').filter((l) => l.startsWith('TARGET ')));
+    if (r.status !== 0) targets.push(`TARGET editor.bench.ts: did not finish (exit ${r.status}) FAIL`);
+  } catch (e) {
+    targets.push(`TARGET editor.bench.ts: could not start (${e instanceof Error ? e.message : e}) FAIL`);
+  } finally {
+    await stack?.stop();
+    rmSync(stateDir, { recursive: true, force: true });
+    if (!pg.external) {
+      pg.dropDatabase(db);
+      if (pg.otherConnections() === 0) pg.stop();
+    }
+  }
+}
+
 console.log('\nSummary of targets:');
 for (const t of targets) console.log('  ' + t);

@@ -59,10 +59,11 @@ async function jasmineSuite(suite, config, env = {}, tsconfig = 'tsconfig.json')
 }
 
 if (want('typecheck')) {
-  log('— typecheck (wick-core, server) —');
-  const a = await capture(join(ROOT, 'node_modules', '.bin', 'tsc'), ['-p', 'projects/wick-core/tsconfig.spec.json', '--noEmit']);
-  const b = await capture(join(ROOT, 'node_modules', '.bin', 'tsc'), ['-p', 'server/tsconfig.json', '--noEmit']);
-  record('typecheck', (a.code === 0) + (b.code === 0), (a.code !== 0) + (b.code !== 0), 0);
+  log('— typecheck (wick-core, server, browser tests and benchmarks) —');
+  const projects = ['projects/wick-core/tsconfig.spec.json', 'server/tsconfig.json', 'projects/wick-ui/e2e/tsconfig.json'];
+  const codes = [];
+  for (const p of projects) codes.push((await capture(join(ROOT, 'node_modules', '.bin', 'tsc'), ['-p', p, '--noEmit'])).code);
+  record('typecheck', codes.filter((c) => c === 0).length, codes.filter((c) => c !== 0).length, 0);
 }
 
 if (want('core')) await jasmineSuite('wick-core', 'projects/wick-core/jasmine.json');

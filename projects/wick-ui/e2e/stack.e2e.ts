@@ -1,23 +1,10 @@
 import type { Browser, Page } from 'playwright-core';
 import { launch, openPage, screenshot } from './support/browser';
+import { choose, DEMO_PROJECT_LINK } from './support/editor';
 import { signIn } from './support/sign-in';
 
-/** The demo project and design seeded by migrations/seeders/04-designs.ts. */
-const DEMO_PROJECT = /Night pad 2027 .demo./;
+/** The demo design seeded by migrations/seeders/04-designs.ts. */
 const DESIGN = 'Acquisition layer options';
-
-/** Picks an option of a Material select once its options have loaded. */
-async function choose(page: Page, select: string, option: RegExp): Promise<void> {
-  const field = page.locator(select);
-  await field.click();
-  const wanted = page.getByRole('option', { name: option }).first();
-  if (!(await wanted.isVisible())) {
-    // Options arrived after the panel opened empty: open it again.
-    await page.keyboard.press('Escape');
-    await field.click();
-  }
-  await wanted.click();
-}
 
 async function addLayer(page: Page, web: RegExp, count: number): Promise<void> {
   await choose(page, '[data-testid="web-select"]', web);
@@ -55,7 +42,7 @@ describe('layered stack in a real browser', () => {
     const consoleErrors: string[] = [];
     page.on('console', (m) => m.type() === 'error' && consoleErrors.push(m.text()));
     await signIn(page, 'priya', '/designs');
-    await page.getByRole('link', { name: DEMO_PROJECT }).first().click();
+    await page.getByRole('link', { name: DEMO_PROJECT_LINK }).first().click();
     await page.waitForURL('**/designs/projects/*');
     await page.locator('mat-card', { hasText: DESIGN }).getByRole('link', { name: 'New stack' }).click();
     await page.waitForURL('**/designs/*/new-stack');
