@@ -35,13 +35,7 @@ if (!only.length || only.some((o) => 'editor.bench.ts'.includes(o))) {
   const chrome = ensureChromium();
   const pg = await ensurePostgres();
   const db = `wickwright_bench_${process.pid}`;
-  let url;
-  if (pg.external) url = pg.url();
-  else {
-    pg.dropDatabase(db);
-    pg.createDatabase(db);
-    url = pg.url(db);
-  }
+  const url = pg.freshDatabase(db);
   const stateDir = join(ROOT, '.wick', `bench-state-${process.pid}`);
   let stack;
   try {
@@ -64,10 +58,8 @@ if (!only.length || only.some((o) => 'editor.bench.ts'.includes(o))) {
   } finally {
     await stack?.stop();
     rmSync(stateDir, { recursive: true, force: true });
-    if (!pg.external) {
-      pg.dropDatabase(db);
-      if (pg.otherConnections() === 0) pg.stop();
-    }
+    pg.dropDatabase(db);
+    if (pg.otherConnections() === 0) pg.stop();
   }
 }
 

@@ -102,7 +102,15 @@ export async function waitForPort(port, what, timeoutMs = 60_000) {
 export async function ensurePostgres() {
   if (process.env.DATABASE_URL) {
     log('Using the database in DATABASE_URL; no private cluster is started.');
-    return { external: true, url: (db) => (db ? withDatabase(process.env.DATABASE_URL, db) : process.env.DATABASE_URL), stop() {} };
+    return {
+      external: true,
+      url: (db) => (db ? withDatabase(process.env.DATABASE_URL, db) : process.env.DATABASE_URL),
+      /** An external server is used as it is: the run works in DATABASE_URL's database. */
+      freshDatabase: () => process.env.DATABASE_URL,
+      dropDatabase() {},
+      otherConnections: () => 0,
+      stop() {},
+    };
   }
   let bin = pgBinDir();
   if (!bin) {
@@ -159,6 +167,12 @@ export async function ensurePostgres() {
       const c = asPg('createdb', ['-h', sockDir, '-p', String(port), '-U', 'wick', db], { stdio: 'inherit' });
       if (c.status !== 0) fail(`Could not create database ${db}.`);
       return true;
+    },
+    /** An empty database of this name (an earlier one dropped); its URL. */
+    freshDatabase(db) {
+      this.dropDatabase(db);
+      this.createDatabase(db);
+      return this.url(db);
     },
     /** Sessions of other clients (another test run, a running app) on this cluster. */
     otherConnections() {

@@ -71,14 +71,8 @@ if (want('core')) await jasmineSuite('wick-core', 'projects/wick-core/jasmine.js
 if (want('server')) {
   // Per-run names: several runs (developers, helpers, CI) may share one cluster.
   const db = `wickwright_test_${process.pid}`;
-  let url;
-  if (pg.external) url = pg.url();
-  else {
-    pg.dropDatabase(db);
-    pg.createDatabase(db);
-    createdDbs.push(db);
-    url = pg.url(db);
-  }
+  const url = pg.freshDatabase(db);
+  if (!pg.external) createdDbs.push(db);
   migrateAndSeed(url, { seed: false });
   await jasmineSuite('server', 'server/jasmine.json', { DATABASE_URL: url, NODE_ENV: 'test', WICK_STATE_DIR: runStateDir('server') }, 'server/tsconfig.json');
 }
@@ -95,14 +89,8 @@ if (want('ui')) {
 if (want('e2e')) {
   log('— end-to-end (playwright-core, Debian chromium) —');
   const db = `wickwright_e2e_${process.pid}`;
-  let url;
-  if (pg.external) url = pg.url();
-  else {
-    pg.dropDatabase(db);
-    pg.createDatabase(db);
-    createdDbs.push(db);
-    url = pg.url(db);
-  }
+  const url = pg.freshDatabase(db);
+  if (!pg.external) createdDbs.push(db);
   migrateAndSeed(url);
   buildUi();
   const ports = stackPorts(process.env.WICK_E2E_PORT ? Number(process.env.WICK_E2E_PORT) : await freePortBase(4710));
