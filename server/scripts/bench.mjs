@@ -3,11 +3,38 @@
 // ports, stopped afterwards). Benchmarks report; they print TARGET lines but never fail the run.
 // `npm run bench -- batch editor` runs only the benchmarks whose file names contain those words.
 import { spawnSync } from 'node:child_process';
-import { existsSync, readdirSync, rmSync } from 'node:fs';
+import { existsSync, readFileSync, readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { ROOT, buildUi, ensureChromium, ensureDependencies, ensurePostgres, freePortBase, log, migrateAndSeed } from './bootstrap.mjs';
 
 ensureDependencies();
+
+/** Share of CPU time spent idle over the next `ms` (Linux /proc/stat; 1 where it cannot be read). */
+async function idleShare(ms) {
+  const read = () => {
+    try {
+      const f = readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/).slice(1).map(Number);
+      return { idle: f[3] + (f[4] || 0), total: f.reduce((a, b) => a + b, 0) };
+    } catch {
+      return null;
+    }
+  };
+  const a = read();
+  await new Promise((r) => setTimeout(r, ms));
+  const b = read();
+  return a && b && b.total > a.total ? (b.idle - a.idle) / (b.total - a.total) : 1;
+}
+
+/**
+ * Waits (at most a minute) until the machine is quiet — what a build or a test run just did (compilers,
+ * database maintenance, a browser closing) would otherwise be timed along with the code. Says so if it is not.
+ */
+async function quietMachine() {
+  const until = Date.now() + 60_000;
+  let idle = await idleShare(1000);
+  while (idle < 0.9 && Date.now() < until) idle = await idleShare(1000);
+  if (idle < 0.9) log(`The machine is busy (${Math.round(idle * 100)} % idle): timings below include that load.`);
+}
 const dirs = [join(ROOT, 'projects', 'wick-core', 'bench'), join(ROOT, 'server', 'bench')];
 const only = process.argv.slice(2);
 const targets = [];
@@ -15,6 +42,7 @@ for (const dir of dirs) {
   if (!existsSync(dir)) continue;
   for (const file of readdirSync(dir).filter((f) => f.endsWith('.bench.ts')).sort()) {
     if (only.length && !only.some((o) => file.includes(o))) continue;
+    await quietMachine();
     log(`— ${file} —`);
     const r = spawnSync(process.execPath, ['--import', 'tsx', join(dir, file)], {
       cwd: ROOT,
@@ -43,6 +71,7 @@ if (!only.length || only.some((o) => 'editor.bench.ts'.includes(o))) {
     buildUi();
     const ports = stackPorts(await freePortBase(4760));
     stack = await startStack({ databaseUrl: url, ports, env: { WICK_STATE_DIR: stateDir, WICK_LOG_REQUESTS: '0' } });
+    await quietMachine();
     const r = spawnSync(process.execPath, ['--import', 'tsx', join(ROOT, 'projects', 'wick-ui', 'e2e', 'editor.bench.ts')], {
       cwd: ROOT,
       encoding: 'utf8',
