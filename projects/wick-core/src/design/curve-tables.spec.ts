@@ -1,3 +1,4 @@
+import { accumulateGravityCurve, gravityCurveInto } from '../pore-size/gravity-table';
 import { gravityHeightUnchecked } from '../washburn/gravity';
 import { radialRadiusUnchecked } from '../washburn/radial';
 import { gravityCurveFast, radialCurveFast } from './curve-tables';
@@ -13,13 +14,22 @@ describe('curve tables for the Monte Carlo bands', () => {
     for (const [a, b] of [[1e-4, 1e-3], [5e-3, 0.1], [1e-6, 1e-7], [2e-3, 0]]) {
       const t = times(b > 0 ? (50 * a) / (b * b) : 100);
       const out = new Float64Array(t.length);
-      gravityCurveFast(a, b, t, out, { sum: new Float64Array(t.length), max: new Float64Array(t.length) });
+      gravityCurveFast(a, b, t, out);
       for (let i = 0; i < t.length; i++) {
         // Exactness against the family's closed form (Fries & Dreyer 2008), which is the reference here.
         const exact = gravityHeightUnchecked(a, b, t[i]);
         expect(Math.abs(out[i] - exact)).toBeLessThanOrEqual(1e-11 * Math.max(exact, 1e-300));
       }
     }
+  });
+
+  it('the band’s single-curve fill gives exactly the pore-size family’s class curve (same table, same arithmetic)', () => {
+    const t = times(300);
+    const mine = new Float64Array(t.length);
+    const family = new Float64Array(t.length);
+    gravityCurveInto(2e-4, 3e-3, t, mine);
+    accumulateGravityCurve(2e-4, 3e-3, t, 1, new Float64Array(t.length), new Float64Array(t.length), family);
+    expect(Array.from(mine)).toEqual(Array.from(family));
   });
 
   it('the radial curve equals the washburn family’s exact solution to 1e-11 from 1e-10 to 1e10 in q', () => {

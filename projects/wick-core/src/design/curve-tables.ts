@@ -3,7 +3,7 @@
  * million times per keystroke. Both are one universal curve scaled per sample, so they are tabulated ONCE from
  * the washburn family's exact solutions and read by cubic Hermite interpolation with exact slopes:
  *
- * - Gravity-restrained rise, h = (a/b)·H(T), T = t·b²/a: the pore-size family's table (accumulateGravityCurve)
+ * - Gravity-restrained rise, h = (a/b)·H(T), T = t·b²/a: the pore-size family's table (gravityCurveInto)
  *   covers T ≤ 49; beyond T = 40 the exact solution H = 1 + W₀(−e^{−1−T}) equals 1 to double precision
  *   (|W₀(x)| ≤ 2|x| for |x| < 0.1 and e^{−41} < 1e-17), so h = a/b there exactly as the exact function returns it.
  * - Radial spreading, R = r0·F(q), q = 4at/r0²: F is tabulated on ln q ∈ [ln 1e-8, ln 1e9] at 8,192 nodes from
@@ -11,23 +11,14 @@
  *   Hermite error (Δ⁴/384)·max|F⁗| ≈ 1e-13·F (the spec checks 1e-11 against the exact function); outside the
  *   table the exact function is called.
  */
-import { accumulateGravityCurve } from '../pore-size/gravity-table';
+import { gravityCurveInto } from '../pore-size/gravity-table';
 import { radialRadiusUnchecked } from '../washburn/radial';
 
 /** Beyond this dimensionless time H(T) = 1 in double precision. */
 const T_SATURATED = 40;
 
-/**
- * h(tᵢ) for dh/dt = a/h − b into `out` (a > 0, b ≥ 0, times ≥ 0 and ASCENDING, unchecked). `scratch` holds
- * two arrays at least as long as `times` for the family's accumulator.
- */
-export function gravityCurveFast(
-  a: number,
-  b: number,
-  times: Float64Array,
-  out: Float64Array,
-  scratch: { readonly sum: Float64Array; readonly max: Float64Array },
-): void {
+/** h(tᵢ) for dh/dt = a/h − b into `out` (a > 0, b ≥ 0, times ≥ 0 and ASCENDING, unchecked). */
+export function gravityCurveFast(a: number, b: number, times: Float64Array, out: Float64Array): void {
   const n = times.length;
   // Times ascend (curveTimes): past t = 40 t* the curve is flat at a/b, so only the rising part is evaluated.
   let rising = n;
@@ -37,9 +28,7 @@ export function gravityCurveFast(
     const heq = a / b;
     for (let i = rising; i < n; i++) out[i] = heq;
   }
-  if (rising > 0) {
-    accumulateGravityCurve(a, b, times.subarray(0, rising), 1, scratch.sum, scratch.max, out.subarray(0, rising));
-  }
+  if (rising > 0) gravityCurveInto(a, b, times.subarray(0, rising), out.subarray(0, rising));
 }
 
 const LN_Q_MIN = Math.log(1e-8);

@@ -543,7 +543,6 @@ function tolerancesOutputs(
     );
   }
   const m = times.length;
-  const scratch = { sum: new Float64Array(m), max: new Float64Array(m) };
   const model: BandModel<ToleranceParameter> = {
     points: m,
     scalars: scalarDefs.length,
@@ -554,7 +553,7 @@ function tolerancesOutputs(
       if (radial) {
         radialCurveFast(x.a, r0, times, curve);
       } else {
-        gravityCurveFast(x.a, x.b, times, curve, scratch);
+        gravityCurveFast(x.a, x.b, times, curve);
         // A rising curve that ends below the strip's length never reached it: no clamping pass.
         if (L !== undefined && !(curve[m - 1] < L * (1 - 1e-9))) for (let i = 0; i < m; i++) curve[i] = Math.min(curve[i], L);
       }

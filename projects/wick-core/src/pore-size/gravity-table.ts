@@ -44,6 +44,37 @@ function table(): { g: Float64Array; d: Float64Array } {
 }
 
 /**
+ * One capillary-rise curve h(tᵢ) = √(2a tᵢ)·G(b tᵢ^½ / √a) written into `out`, by the same table and the same
+ * arithmetic as {@link accumulateGravityCurve} (identical values) without its sums: the Monte Carlo band calls
+ * this a thousand times per keystroke.
+ */
+export function gravityCurveInto(a: number, b: number, times: ArrayLike<number>, out: Float64Array): void {
+  const n = times.length;
+  const { g, d } = table();
+  const root2a = Math.sqrt(2 * a);
+  const sPerRootT = b / Math.sqrt(a);
+  const heq = b > 0 ? a / b : Number.POSITIVE_INFINITY;
+  for (let j = 0; j < n; j++) {
+    const rt = Math.sqrt(times[j]);
+    const u = (sPerRootT * rt) / DS;
+    if (u >= NODES) {
+      out[j] = heq;
+      continue;
+    }
+    const k = Math.floor(u);
+    const x = u - k;
+    const x2 = x * x;
+    const x3 = x2 * x;
+    const G =
+      (2 * x3 - 3 * x2 + 1) * g[k] +
+      (x3 - 2 * x2 + x) * DS * d[k] +
+      (-2 * x3 + 3 * x2) * g[k + 1] +
+      (x3 - x2) * DS * d[k + 1];
+    out[j] = root2a * rt * G;
+  }
+}
+
+/**
  * h(t) for dh/dt = a/h − b at each time, ADDED with weight w into `sum` and folded into `max`
  * (running maximum); optionally written to `classOut`. a > 0, b ≥ 0, times ≥ 0 — the caller checks.
  * No allocation.
