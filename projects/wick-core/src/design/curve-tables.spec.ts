@@ -1,4 +1,3 @@
-import { accumulateGravityCurve, gravityCurveInto } from '../pore-size/gravity-table';
 import { gravityHeightUnchecked } from '../washburn/gravity';
 import { radialRadiusUnchecked } from '../washburn/radial';
 import { gravityCurveFast, radialCurveFast } from './curve-tables';
@@ -21,15 +20,6 @@ describe('curve tables for the Monte Carlo bands', () => {
         expect(Math.abs(out[i] - exact)).toBeLessThanOrEqual(1e-11 * Math.max(exact, 1e-300));
       }
     }
-  });
-
-  it('the band’s single-curve fill gives exactly the pore-size family’s class curve (same table, same arithmetic)', () => {
-    const t = times(300);
-    const mine = new Float64Array(t.length);
-    const family = new Float64Array(t.length);
-    gravityCurveInto(2e-4, 3e-3, t, mine);
-    accumulateGravityCurve(2e-4, 3e-3, t, 1, new Float64Array(t.length), new Float64Array(t.length), family);
-    expect(Array.from(mine)).toEqual(Array.from(family));
   });
 
   it('the radial curve equals the washburn family’s exact solution to 1e-11 from 1e-10 to 1e10 in q', () => {

@@ -44,9 +44,8 @@ function table(): { g: Float64Array; d: Float64Array } {
 }
 
 /**
- * One capillary-rise curve h(tᵢ) = √(2a tᵢ)·G(b tᵢ^½ / √a) written into `out`, by the same table and the same
- * arithmetic as {@link accumulateGravityCurve} (identical values) without its sums: the Monte Carlo band calls
- * this a thousand times per keystroke.
+ * One capillary-rise curve h(tᵢ) = √(2a tᵢ)·G(b tᵢ^½ / √a) written into `out` (the Monte Carlo band calls
+ * this a thousand times per keystroke; the pore-size bundle sums it over classes).
  */
 export function gravityCurveInto(a: number, b: number, times: ArrayLike<number>, out: Float64Array): void {
   const n = times.length;
@@ -74,10 +73,13 @@ export function gravityCurveInto(a: number, b: number, times: ArrayLike<number>,
   }
 }
 
+/** Reusable row for {@link accumulateGravityCurve} when the caller wants no class curve (no allocation per call). */
+let row = new Float64Array(0);
+
 /**
- * h(t) for dh/dt = a/h − b at each time, ADDED with weight w into `sum` and folded into `max`
- * (running maximum); optionally written to `classOut`. a > 0, b ≥ 0, times ≥ 0 — the caller checks.
- * No allocation.
+ * h(t) for dh/dt = a/h − b at each time (as {@link gravityCurveInto}), ADDED with weight w into `sum` and
+ * folded into `max` (running maximum); optionally written to `classOut`. a > 0, b ≥ 0, times ≥ 0 — the
+ * caller checks.
  */
 export function accumulateGravityCurve(
   a: number,
@@ -89,30 +91,15 @@ export function accumulateGravityCurve(
   classOut?: Float64Array,
 ): void {
   const n = times.length;
-  const { g, d } = table();
-  const root2a = Math.sqrt(2 * a);
-  const sPerRootT = b / Math.sqrt(a);
-  const heq = b > 0 ? a / b : Number.POSITIVE_INFINITY;
+  let out = classOut;
+  if (!out) {
+    if (row.length < n) row = new Float64Array(n);
+    out = row;
+  }
+  gravityCurveInto(a, b, times, out);
   for (let j = 0; j < n; j++) {
-    const rt = Math.sqrt(times[j]);
-    const u = (sPerRootT * rt) / DS;
-    let v: number;
-    if (u >= NODES) {
-      v = heq;
-    } else {
-      const k = Math.floor(u);
-      const x = u - k;
-      const x2 = x * x;
-      const x3 = x2 * x;
-      const G =
-        (2 * x3 - 3 * x2 + 1) * g[k] +
-        (x3 - 2 * x2 + x) * DS * d[k] +
-        (-2 * x3 + 3 * x2) * g[k + 1] +
-        (x3 - x2) * DS * d[k + 1];
-      v = root2a * rt * G;
-    }
+    const v = out[j];
     sum[j] += w * v;
     if (v > max[j]) max[j] = v;
-    if (classOut) classOut[j] = v;
   }
 }
