@@ -68,7 +68,7 @@ import { webDataSchema } from '../schemas/library';
 import { audit } from './audit';
 import { type LibraryContext, patchEntryData, submitEntry } from './library';
 import { refOf, userRefs } from './library-people';
-import { UPLOAD_LIMITS } from './library-uploads';
+import { storeFile, UPLOAD_LIMITS } from './library-uploads';
 
 export interface LabContext {
   readonly sequelize: Sequelize;
@@ -354,20 +354,7 @@ export async function createRun(ctx: LabContext, meta: LabRunCreate, file: Uploa
   const summary = labRunFigures(analyseLabRun(data));
   const id = await ctx.sequelize.transaction(async (t) => {
     const set = await setFor(ctx, meta, { webId: web.entryId, liquidKey, liquidName: liquid.name, measurement: curve.measurement }, user, t);
-    const f = await ctx.library.models.File.create(
-      {
-        purpose: 'curve',
-        fileName: file.fileName.slice(0, 255),
-        mediaType: file.mediaType.slice(0, 100) || 'text/csv',
-        size: file.bytes.length,
-        sha256: table.sha256,
-        encoding: table.info.encoding,
-        delimiter: table.info.delimiter,
-        content: file.bytes,
-        uploadedBy: user.id,
-      },
-      { transaction: t },
-    );
+    const f = await storeFile(ctx.library, 'curve', file, table, user, t);
     const run = await ctx.models.LabRun.create(
       {
         setId: set.id,

@@ -22,7 +22,7 @@ import type { SessionUser } from '../auth/authorize';
 import { AppError } from '../errors';
 import type { LibraryUpload } from '../models/library';
 import { parseCurveCsv } from '../uploads/curve-csv';
-import { readCsvTable, reject, type UploadedFile } from '../uploads/csv-table';
+import { readCsvTable, reject, type CsvTable, type UploadedFile } from '../uploads/csv-table';
 import { parsePsdCsv } from '../uploads/psd-csv';
 import { parseWebImportCsv } from '../uploads/web-import-csv';
 import { createEntryIn, type LibraryContext, patchEntryData } from './library';
@@ -70,6 +70,31 @@ function previewOf(u: LibraryUpload, info: UploadPreview['file']): UploadPreview
   return { uploadId: u.id, entryId: u.entryId, file: info, warnings: u.warnings, preview: u.preview, expiresAt: u.expiresAt.toISOString() };
 }
 
+/** Keeps an uploaded CSV byte for byte, with what reading it found (encoding, delimiter), inside `t`. */
+export async function storeFile(
+  ctx: LibraryContext,
+  purpose: UploadPurpose,
+  file: UploadedFile,
+  table: CsvTable,
+  user: SessionUser,
+  t: Transaction,
+) {
+  return ctx.models.File.create(
+    {
+      purpose,
+      fileName: file.fileName.slice(0, 255),
+      mediaType: file.mediaType.slice(0, 100) || 'text/csv',
+      size: file.bytes.length,
+      sha256: table.sha256,
+      encoding: table.info.encoding,
+      delimiter: table.info.delimiter,
+      content: file.bytes,
+      uploadedBy: user.id,
+    },
+    { transaction: t },
+  );
+}
+
 /** Reads, checks and keeps an upload as a preview. Nothing is stored unless every row is good. */
 export async function previewUpload(ctx: LibraryContext, request: UploadRequest, file: UploadedFile, user: SessionUser): Promise<UploadPreview> {
   if (request.purpose !== 'web-import') await editableWeb(ctx, request.entryId);
@@ -107,20 +132,7 @@ export async function previewUpload(ctx: LibraryContext, request: UploadRequest,
 
   const upload = await ctx.sequelize.transaction(async (t) => {
     await discardExpired(ctx, t);
-    const f = await ctx.models.File.create(
-      {
-        purpose: request.purpose,
-        fileName: file.fileName.slice(0, 255),
-        mediaType: file.mediaType.slice(0, 100) || 'text/csv',
-        size: file.bytes.length,
-        sha256: table.sha256,
-        encoding: table.info.encoding,
-        delimiter: table.info.delimiter,
-        content: file.bytes,
-        uploadedBy: user.id,
-      },
-      { transaction: t },
-    );
+    const f = await storeFile(ctx, request.purpose, file, table, user, t);
     return ctx.models.Upload.create(
       {
         purpose: request.purpose,
