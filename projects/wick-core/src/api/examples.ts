@@ -3,6 +3,8 @@
  * them, docs/cli.md quotes them, and a test runs every one through the registry, so the CLI answers every model.
  * The inputs are textbook-like values, not data of any real product.
  */
+import { VARIANT_EXAMPLE } from '../design/models';
+
 const pp = { massFraction: 0.6, fibreDensity: 910, linearDensity: 1.7e-7, name: 'PP 1.7 dtex' };
 const pet = { massFraction: 0.4, fibreDensity: 1390, linearDensity: 3.3e-7, name: 'PET 3.3 dtex' };
 const psd = { diameters: [10, 20, 40, 80, 160], fractions: [0.1, 0.25, 0.35, 0.2, 0.1], form: 'differential' };
@@ -83,21 +85,7 @@ export const MODEL_EXAMPLES: Readonly<Record<string, Readonly<Record<string, unk
     pressures: [0, 500, 1000, 2000, 4000],
   },
   'design-variant': {
-    variant: {
-      configuration: 'vertical-strip',
-      structure: {
-        linearDensity: 6.7e-7,
-        fibreDensity: 1390,
-        basisWeight: 0.05,
-        thickness: 0.0012,
-        contactAngle: 0.96,
-        permeability: { mode: 'correlation', correlation: 'tomadakis-robertson-2d-in-plane' },
-      },
-      liquid: { ref: 'saline-0.9', temperature: 296.15 },
-      dimensions: { width: 0.025, duration: 600 },
-      checkpoints: { heights: [0.01, 0.02], times: [10, 60, 600] },
-      tolerances: { basisWeight: { kind: 'normal', sd: 0.0025, lower: 0 } },
-    },
+    variant: VARIANT_EXAMPLE,
     curvePoints: 100,
     samples: 200,
   },

@@ -9,5 +9,5 @@ export { describeInputs, type VariantInputRow } from './describe';
 export { VARIANT_EQUATIONS } from './equations';
 export { structureFromLibrary, liquidFromLibrary, type LibraryFibre, type StructureFromLibrary } from './from-library';
 export { fixtureKeys, fixtureMismatches, type FixtureCase, type VariantFixture } from './fixture';
-export { designModels } from './models';
+export { designModels, VARIANT_EXAMPLE } from './models';
 export * from './api';

@@ -1,6 +1,26 @@
 import type { ModelSpec } from '../api/model-spec';
 import { evaluateVariant } from './evaluate';
-import { DEFAULT_VARIANT_OPTIONS } from './variant';
+import { DEFAULT_VARIANT_OPTIONS, type VariantInputs } from './variant';
+
+/**
+ * An invented acquisition-layer strip in saline with one toleranced input (no real product): the registry's
+ * example and the browser's warm-up case for the live band.
+ */
+export const VARIANT_EXAMPLE: VariantInputs = {
+  configuration: 'vertical-strip',
+  structure: {
+    linearDensity: 6.7e-7,
+    fibreDensity: 1390,
+    basisWeight: 0.05,
+    thickness: 0.0012,
+    contactAngle: 0.96,
+    permeability: { mode: 'correlation', correlation: 'tomadakis-robertson-2d-in-plane' },
+  },
+  liquid: { ref: 'saline-0.9', temperature: 296.15 },
+  dimensions: { width: 0.025, duration: 600 },
+  checkpoints: { heights: [0.01, 0.02], times: [10, 60, 600] },
+  tolerances: { basisWeight: { kind: 'normal', sd: 0.0025, lower: 0 } },
+};
 
 /** The design family as the model registry lists it: one model, a whole variant per request. */
 export const designModels: ModelSpec[] = [
