@@ -56,6 +56,32 @@ function scratch(size: number): Float64Array {
 }
 
 /**
+ * One slice of a band's Monte Carlo run: samples `from`…`to` of the same draw sequence, evaluated, with each
+ * curve point's valid values sorted. Parts of one run computed on different threads merge (with
+ * {@link mergeBandParts}) into exactly the percentiles a single {@link percentileBands} call gives.
+ */
+export interface BandPart {
+  readonly samples: number;
+  readonly from: number;
+  readonly to: number;
+  readonly points: number;
+  readonly scalars: number;
+  /** Samples of the slice with a valid result. */
+  readonly valid: number;
+  readonly failed: number;
+  /** The slice's first refused sample (its index in the whole run), if any. */
+  readonly firstFailure: { readonly index: number; readonly message: string } | null;
+  /** Largest curve index at which a valid sample of the slice still changes; later points repeat it. */
+  readonly lastChange: number;
+  /** Each point's valid values in ascending order, point-major with row length `valid`, rows 0…lastChange. */
+  readonly sorted: Float64Array;
+  /** The valid samples' scalar outputs, sample-major (`valid` × `scalars`). */
+  readonly scalarValues: Float64Array;
+  /** Warnings from preparing the tolerances (the same in every part). */
+  readonly warnings: readonly ModelWarning[];
+}
+
+/**
  * P10/P50/P90 of every curve point and scalar over `samples` Monte Carlo draws of the toleranced inputs.
  * @throws DomainError when fewer than two samples are valid or the tolerances are malformed.
  */
@@ -66,6 +92,146 @@ export function percentileBands<K extends string>(
   samples: number,
   seed: number,
 ): BandResult {
+  const run = sampleCurves(model, nominal, tolerances, samples, seed, 0, samples);
+  const m = model.points;
+  const n = run.valid;
+  requireValid(n, samples, run.firstFailure?.message);
+  const p10 = new Float64Array(m);
+  const p50 = new Float64Array(m);
+  const p90 = new Float64Array(m);
+  const col = new Float64Array(n);
+  sortPoints(run, () => col, (i, c) => {
+    p10[i] = percentileSorted(c, 0.1, n);
+    p50[i] = percentileSorted(c, 0.5, n);
+    p90[i] = percentileSorted(c, 0.9, n);
+  });
+  levelOff(p10, p50, p90, run.lastChange);
+  return {
+    samples,
+    valid: n,
+    curve: { p10, p50, p90 },
+    scalars: scalarPercentiles([run.scalarValues.subarray(0, n * model.scalars)], n, model.scalars),
+    failures: failures(run.failed, run.firstFailure?.message),
+    warnings: withFailureWarning(run.warnings, run.failed, samples, run.firstFailure?.message),
+  };
+}
+
+/**
+ * Samples `from`…`to` (of `samples`) of the run {@link percentileBands} makes with the same arguments, for one
+ * thread's share of the work. The draws before `from` are made and dropped, so every part sees the run's own
+ * sequence. Never throws for too few valid samples: that is judged on the merged run.
+ */
+export function bandPart<K extends string>(
+  model: BandModel<K>,
+  nominal: Readonly<Record<K, number>>,
+  tolerances: Readonly<Partial<Record<K, Tolerance>>>,
+  samples: number,
+  seed: number,
+  from: number,
+  to: number,
+): BandPart {
+  if (!(Number.isInteger(from) && Number.isInteger(to) && 0 <= from && from <= to && to <= samples)) {
+    throw new RangeError(`A band part must lie within 0…${samples} (got ${from}…${to}).`);
+  }
+  const run = sampleCurves(model, nominal, tolerances, samples, seed, from, to);
+  const n = run.valid;
+  const rows = n === 0 ? 0 : run.lastChange + 1;
+  const sorted = new Float64Array(rows * n);
+  sortPoints(run, (i) => sorted.subarray(i * n, (i + 1) * n));
+  return {
+    samples,
+    from,
+    to,
+    points: model.points,
+    scalars: model.scalars,
+    valid: n,
+    failed: run.failed,
+    firstFailure: run.firstFailure,
+    lastChange: run.lastChange,
+    sorted,
+    scalarValues: run.scalarValues.slice(0, n * model.scalars),
+    warnings: run.warnings,
+  };
+}
+
+/**
+ * The band of a run from its parts, which must cover samples 0…samples in order without gaps: the same numbers
+ * as {@link percentileBands} on the whole run (each percentile reads the same order statistics, found by a
+ * selection over the parts' sorted values instead of one sort).
+ * @throws DomainError when fewer than two samples are valid; RangeError when the parts do not fit together.
+ */
+export function mergeBandParts(parts: readonly BandPart[]): BandResult {
+  if (parts.length === 0) throw new RangeError('No band parts to merge.');
+  const { samples, points: m, scalars: q } = parts[0];
+  let at = 0;
+  for (const p of parts) {
+    if (p.samples !== samples || p.points !== m || p.scalars !== q || p.from !== at || p.to < p.from) {
+      throw new RangeError('The band parts do not belong to one run or leave a gap.');
+    }
+    at = p.to;
+  }
+  if (at !== samples) throw new RangeError(`The band parts cover ${at} of ${samples} samples.`);
+  const used = parts.filter((p) => p.valid > 0);
+  const n = used.reduce((s, p) => s + p.valid, 0);
+  const failed = parts.reduce((s, p) => s + p.failed, 0);
+  const firstMessage = parts.find((p) => p.firstFailure !== null)?.firstFailure?.message;
+  requireValid(n, samples, firstMessage);
+  const lastChange = used.reduce((s, p) => Math.max(s, p.lastChange), 0);
+  const p10 = new Float64Array(m);
+  const p50 = new Float64Array(m);
+  const p90 = new Float64Array(m);
+  const rows: SortedRow[] = used.map((p) => ({ data: p.sorted, start: 0, length: p.valid }));
+  const lo = new Int32Array(rows.length);
+  const pair = new Float64Array(2);
+  for (let i = 0; i <= lastChange && i < m; i++) {
+    for (let k = 0; k < used.length; k++) rows[k].start = Math.min(i, used[k].lastChange) * used[k].valid;
+    if (rows.length === 2) {
+      // Two parts (the usual case): both neighbouring order statistics from one binary search.
+      const [a, b] = rows;
+      p10[i] = percentileOfPair(a, b, pair, 0.1, n);
+      p50[i] = percentileOfPair(a, b, pair, 0.5, n);
+      p90[i] = percentileOfPair(a, b, pair, 0.9, n);
+      continue;
+    }
+    const at = (rank: number) => selectRank(rows, lo, rank);
+    p10[i] = percentileOfRanks(at, 0.1, n);
+    p50[i] = percentileOfRanks(at, 0.5, n);
+    p90[i] = percentileOfRanks(at, 0.9, n);
+  }
+  levelOff(p10, p50, p90, lastChange);
+  return {
+    samples,
+    valid: n,
+    curve: { p10, p50, p90 },
+    scalars: scalarPercentiles(used.map((p) => p.scalarValues), n, q),
+    failures: failures(failed, firstMessage),
+    warnings: withFailureWarning(parts[0].warnings, failed, samples, firstMessage),
+  };
+}
+
+interface SampledRun {
+  /** Point-major curves of the valid samples, row length `stride` (the slice's size), first `valid` used. */
+  readonly store: Float64Array;
+  readonly stride: number;
+  readonly points: number;
+  readonly valid: number;
+  readonly failed: number;
+  readonly firstFailure: { readonly index: number; readonly message: string } | null;
+  readonly lastChange: number;
+  readonly scalarValues: Float64Array;
+  readonly warnings: ModelWarning[];
+}
+
+/** Draws the whole run's parameter sets in order and evaluates those of samples `from`…`to`. */
+function sampleCurves<K extends string>(
+  model: BandModel<K>,
+  nominal: Readonly<Record<K, number>>,
+  tolerances: Readonly<Partial<Record<K, Tolerance>>>,
+  samples: number,
+  seed: number,
+  from: number,
+  to: number,
+): SampledRun {
   const m = model.points;
   const q = model.scalars;
   if (samples * m > MAX_VALUES) {
@@ -79,37 +245,39 @@ export function percentileBands<K extends string>(
   );
   const rng = createRng(seed);
   const work = { ...nominal } as Record<K, number>;
+  const stride = to - from;
   // Point-major store (each point's samples contiguous, as the statistics read them), filled through a
   // small sample-major block so that neither the writes nor the reads stride across megabytes.
-  const store = scratch(samples * m);
+  const store = scratch(stride * m);
   const block = new Float64Array(BLOCK * m);
   const views = Array.from({ length: BLOCK }, (_, k) => block.subarray(k * m, (k + 1) * m));
-  const scalarStore = new Float64Array(samples * q);
+  const scalarStore = new Float64Array(stride * q);
   const scal = new Float64Array(q);
   let n = 0;
   let inBlock = 0;
   let failed = 0;
-  let firstMessage: string | undefined;
+  let firstFailure: { index: number; message: string } | null = null;
   // Largest index at which any valid curve still changes: beyond it every point's samples equal the previous
   // point's (a levelled-off band), so those points need no statistics of their own.
   let lastChange = 0;
   const flush = () => {
     for (let i = 0; i < m; i++) {
-      const row = i * samples + n;
+      const row = i * stride + n;
       for (let k = 0; k < inBlock; k++) store[row + k] = block[k * m + i];
     }
     n += inBlock;
     inBlock = 0;
   };
-  for (let s = 0; s < samples; s++) {
+  for (let s = 0; s < to; s++) {
     for (let j = 0; j < prepared.length; j++) work[prepared[j].name as K] = prepared[j].sample(rng);
+    if (s < from) continue;
     const curve = views[inBlock];
     try {
       model.evaluate(work, curve, scal);
     } catch (e) {
       if (!isDomainError(e)) throw e;
       failed++;
-      firstMessage ??= e.message;
+      firstFailure ??= { index: s, message: e.message };
       continue;
     }
     // One backward pass: the sum (NaN or ±Infinity anywhere makes it non-finite, one test instead of one per
@@ -123,7 +291,7 @@ export function percentileBands<K extends string>(
     }
     if (!Number.isFinite(sum)) {
       failed++;
-      firstMessage ??= 'the model returned a non-finite value';
+      firstFailure ??= { index: s, message: 'the model returned a non-finite value' };
       continue;
     }
     if (last > lastChange) lastChange = last;
@@ -131,38 +299,23 @@ export function percentileBands<K extends string>(
     if (++inBlock === BLOCK) flush();
   }
   flush();
-  if (n < 2) {
-    throw new DomainError(
-      'insufficient-data',
-      `Only ${n} of ${samples} samples gave a valid result${firstMessage ? ` (first problem: ${firstMessage})` : ''}; ` +
-        'narrow the tolerances or move the nominal point.',
-      'tolerances',
-    );
-  }
-  if (failed > 0) {
-    warnings.push({
-      code: 'samples-outside-validity',
-      message:
-        `${failed} of ${samples} samples (${((100 * failed) / samples).toFixed(1)} %) fell outside the model's validity ` +
-        `and were left out${firstMessage ? ` (first: ${firstMessage})` : ''}; the bands describe the remaining samples only.`,
-    });
-  }
+  return { store, stride, points: m, valid: n, failed, firstFailure, lastChange, scalarValues: scalarStore, warnings };
+}
 
-  const p10 = new Float64Array(m);
-  const p50 = new Float64Array(m);
-  const p90 = new Float64Array(m);
+/**
+ * Hands each point 0…lastChange's valid values to `visit`, sorted ascending in `rowFor(i)` (its first `valid`
+ * entries): a reused buffer, or the point's row of a part's output so that nothing is copied afterwards.
+ * Each point's samples are kept in the order of the previous point and re-sorted by insertion: wicking curves
+ * of one variant rarely cross, so that is almost linear where a fresh sort per point costs several passes.
+ */
+function sortPoints(run: SampledRun, rowFor: (i: number) => Float64Array, visit?: (i: number, col: Float64Array) => void): void {
+  const { store, stride, valid: n } = run;
+  if (n === 0) return;
   const perm = new Int32Array(n);
   for (let k = 0; k < n; k++) perm[k] = k;
-  const col = new Float64Array(n);
-  for (let i = 0; i < m; i++) {
-    const row = i * samples;
-    if (i > lastChange) {
-      // Every sample unchanged since the last point (a levelled-off curve): same percentiles, no sorting.
-      p10[i] = p10[i - 1];
-      p50[i] = p50[i - 1];
-      p90[i] = p90[i - 1];
-      continue;
-    }
+  for (let i = 0; i <= run.lastChange && i < run.points; i++) {
+    const row = i * stride;
+    const col = rowFor(i);
     for (let k = 0; k < n; k++) col[k] = store[row + perm[k]];
     if (!insertionSortWith(col, perm, n, SHIFT_BUDGET * n)) {
       // Curves crossing en masse: sort this point from scratch instead.
@@ -172,25 +325,151 @@ export function percentileBands<K extends string>(
         col[k] = store[row + order[k]];
       }
     }
-    p10[i] = percentileSorted(col, 0.1, n);
-    p50[i] = percentileSorted(col, 0.5, n);
-    p90[i] = percentileSorted(col, 0.9, n);
+    visit?.(i, col);
   }
-  const scalars: { p10: number; p50: number; p90: number }[] = [];
+}
+
+/** Points after the last change repeat the last computed percentiles (a levelled-off band; no sorting). */
+function levelOff(p10: Float64Array, p50: Float64Array, p90: Float64Array, lastChange: number): void {
+  for (let i = lastChange + 1; i < p10.length; i++) {
+    p10[i] = p10[i - 1];
+    p50[i] = p50[i - 1];
+    p90[i] = p90[i - 1];
+  }
+}
+
+function requireValid(n: number, samples: number, firstMessage: string | undefined): void {
+  if (n < 2) {
+    throw new DomainError(
+      'insufficient-data',
+      `Only ${n} of ${samples} samples gave a valid result${firstMessage ? ` (first problem: ${firstMessage})` : ''}; ` +
+        'narrow the tolerances or move the nominal point.',
+      'tolerances',
+    );
+  }
+}
+
+function failures(count: number, firstMessage: string | undefined): BandResult['failures'] {
+  return firstMessage === undefined ? { count } : { count, firstMessage };
+}
+
+function withFailureWarning(prepared: readonly ModelWarning[], failed: number, samples: number, firstMessage: string | undefined): ModelWarning[] {
+  const warnings = [...prepared];
+  if (failed > 0) {
+    warnings.push({
+      code: 'samples-outside-validity',
+      message:
+        `${failed} of ${samples} samples (${((100 * failed) / samples).toFixed(1)} %) fell outside the model's validity ` +
+        `and were left out${firstMessage ? ` (first: ${firstMessage})` : ''}; the bands describe the remaining samples only.`,
+    });
+  }
+  return warnings;
+}
+
+/** Percentiles of each scalar over the valid samples of all parts (sample-major blocks). */
+function scalarPercentiles(blocks: readonly Float64Array[], n: number, q: number): BandResult['scalars'] {
+  const out: { p10: number; p50: number; p90: number }[] = [];
   const sc = new Float64Array(n);
   for (let j = 0; j < q; j++) {
-    for (let k = 0; k < n; k++) sc[k] = scalarStore[k * q + j];
+    let k = 0;
+    for (const b of blocks) for (let r = j; r < b.length; r += q) sc[k++] = b[r];
     sc.sort();
-    scalars.push({ p10: percentileSorted(sc, 0.1, n), p50: percentileSorted(sc, 0.5, n), p90: percentileSorted(sc, 0.9, n) });
+    out.push({ p10: percentileSorted(sc, 0.1, n), p50: percentileSorted(sc, 0.5, n), p90: percentileSorted(sc, 0.9, n) });
   }
-  return {
-    samples,
-    valid: n,
-    curve: { p10, p50, p90 },
-    scalars,
-    failures: firstMessage === undefined ? { count: failed } : { count: failed, firstMessage },
-    warnings,
-  };
+  return out;
+}
+
+/**
+ * Hyndman & Fan definition 7, the arithmetic of `percentileSorted`, over values read by rank (0-based) from a
+ * sorted sequence of n values that is never built.
+ */
+function percentileOfRanks(at: (rank: number) => number, p: number, n: number): number {
+  const h = (n - 1) * p;
+  const k = Math.floor(h);
+  const lo = at(k);
+  return k + 1 < n ? lo + (h - k) * (at(k + 1) - lo) : lo;
+}
+
+/** {@link percentileOfRanks} over the union of two sorted rows, reading both order statistics at once. */
+function percentileOfPair(a: SortedRow, b: SortedRow, pair: Float64Array, p: number, n: number): number {
+  const h = (n - 1) * p;
+  const k = Math.floor(h);
+  neighbourRanks(a, b, k, pair);
+  const lo = pair[0];
+  return k + 1 < n ? lo + (h - k) * (pair[1] - lo) : lo;
+}
+
+/**
+ * The values of ranks k and k + 1 (0-based; the second is +∞ past the end) in the union of two sorted rows:
+ * binary search for how many of the k + 1 smallest come from `a` (the classic median-of-two-arrays split).
+ */
+function neighbourRanks(a: SortedRow, b: SortedRow, k: number, out: Float64Array): void {
+  const A = a.data;
+  const B = b.data;
+  const sa = a.start;
+  const sb = b.start;
+  const take = k + 1;
+  let low = Math.max(0, take - b.length);
+  let high = Math.min(take, a.length);
+  // Find i (taken from a) with a[i−1] ≤ b[take−i] and b[take−i−1] ≤ a[i].
+  while (low < high) {
+    const i = (low + high) >> 1;
+    if (A[sa + i] < B[sb + take - i - 1]) low = i + 1;
+    else high = i;
+  }
+  const i = low;
+  const j = take - i;
+  const lastA = i > 0 ? A[sa + i - 1] : Number.NEGATIVE_INFINITY;
+  const lastB = j > 0 ? B[sb + j - 1] : Number.NEGATIVE_INFINITY;
+  out[0] = lastA > lastB ? lastA : lastB;
+  const nextA = i < a.length ? A[sa + i] : Number.POSITIVE_INFINITY;
+  const nextB = j < b.length ? B[sb + j] : Number.POSITIVE_INFINITY;
+  out[1] = nextA < nextB ? nextA : nextB;
+}
+
+interface SortedRow {
+  readonly data: Float64Array;
+  start: number;
+  readonly length: number;
+}
+
+/**
+ * The value of the given rank (0-based) in the union of ascending rows, without merging them: repeatedly drop
+ * the leading run of the row whose probe is smallest. With probes at most ⌊(k+1)/rows⌋ deep, everything
+ * dropped ranks below the target (the classic two-array selection, for any number of rows); O(rows · log n).
+ */
+function selectRank(rows: readonly SortedRow[], lo: Int32Array, rank: number): number {
+  lo.fill(0);
+  let k = rank + 1;
+  for (;;) {
+    let live = 0;
+    let only = -1;
+    for (let r = 0; r < rows.length; r++) {
+      if (lo[r] < rows[r].length) {
+        live++;
+        only = r;
+      }
+    }
+    if (live === 1) return rows[only].data[rows[only].start + lo[only] + k - 1];
+    const step = Math.max(1, Math.floor(k / live));
+    let best = -1;
+    let bestValue = Number.POSITIVE_INFINITY;
+    let bestTake = 0;
+    for (let r = 0; r < rows.length; r++) {
+      const left = rows[r].length - lo[r];
+      if (left <= 0) continue;
+      const take = Math.min(step, left);
+      const v = rows[r].data[rows[r].start + lo[r] + take - 1];
+      if (best < 0 || v < bestValue) {
+        best = r;
+        bestValue = v;
+        bestTake = take;
+      }
+    }
+    if (k === 1 || bestTake === k) return bestValue;
+    lo[best] += bestTake;
+    k -= bestTake;
+  }
 }
 
 /** Element moves allowed per sample before a point is sorted from scratch. */

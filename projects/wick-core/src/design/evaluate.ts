@@ -20,7 +20,7 @@ import { capillaryUptake } from '../washburn/capillary';
 import { gravityCurve, gravityHeightUnchecked, gravityTimeUnchecked } from '../washburn/gravity';
 import { porousStripUptake } from '../washburn/porous-strip';
 import { radialRadiusUnchecked, radialSpreading } from '../washburn/radial';
-import { percentileBands, type BandModel } from './band';
+import { bandPart, mergeBandParts, percentileBands, type BandModel, type BandPart, type BandResult } from './band';
 import { gravityCurveFast, radialCurveFast } from './curve-tables';
 import { VARIANT_EQUATIONS, permeabilityEquation } from './equations';
 import { TOLERANCE_FIELDS } from './fields';
@@ -296,15 +296,8 @@ function withCheckpointField<T>(run: () => T): T {
   }
 }
 
-/**
- * Evaluates one design variant.
- *
- * @param raw the variant's inputs (checked by {@link readVariantInputs}; SI values).
- * @param options curve points (default 200), Monte Carlo samples (default 1,000) and seed (default 1).
- * @returns results, or a 'no-spontaneous-uptake' status when the liquid does not wet the layer.
- * @throws DomainError whose `field` is the input path, for inputs that are invalid or physically impossible.
- */
-export function evaluateVariant(raw: VariantInputs | unknown, options: EvaluateVariantOptions = {}): VariantResults {
+/** Reads and checks a variant's inputs and options and resolves its nominal parameters. */
+function prepareVariant(raw: VariantInputs | unknown, options: EvaluateVariantOptions) {
   const inputs = readVariantInputs(raw);
   const points = intOption('curvePoints', options.curvePoints ?? 200, 2, 5000);
   const samples = intOption('samples', options.samples ?? 1000, 10, 20000);
@@ -328,6 +321,32 @@ export function evaluateVariant(raw: VariantInputs | unknown, options: EvaluateV
   }
 
   const r = resolveVariant(nominal, ctx, warnings);
+  return { inputs, points, samples, seed, warnings, liquid, nominal, ctx, tolerances, r };
+}
+
+/**
+ * Samples `from`…`to` of the variant's Monte Carlo band (see {@link bandPart}), for evaluating the band on
+ * several threads: {@link evaluateVariant} given the parts of all samples returns exactly what it returns alone.
+ * @returns null when the variant has no band (no tolerances, or a liquid that does not wet the layer).
+ * @throws DomainError as {@link evaluateVariant} does for the same inputs.
+ */
+export function variantBandPart(raw: VariantInputs | unknown, options: EvaluateVariantOptions, from: number, to: number): BandPart | null {
+  const { inputs, points, samples, seed, nominal, ctx, tolerances, r } = prepareVariant(raw, options);
+  if (!r.wetting || !hasTolerances(inputs)) return null;
+  const { model } = bandModel(inputs, ctx, r, curveTimes(inputs.dimensions.duration, points));
+  return bandPart(model, nominal as Record<ToleranceParameter, number>, tolerances, samples, seed, from, to);
+}
+
+/**
+ * Evaluates one design variant.
+ *
+ * @param raw the variant's inputs (checked by {@link readVariantInputs}; SI values).
+ * @param options curve points (default 200), Monte Carlo samples (default 1,000) and seed (default 1).
+ * @returns results, or a 'no-spontaneous-uptake' status when the liquid does not wet the layer.
+ * @throws DomainError whose `field` is the input path, for inputs that are invalid or physically impossible.
+ */
+export function evaluateVariant(raw: VariantInputs | unknown, options: EvaluateVariantOptions = {}, bandParts?: readonly BandPart[]): VariantResults {
+  const { inputs, points, samples, seed, warnings, liquid, nominal, ctx, tolerances, r } = prepareVariant(raw, options);
   const capillaryPressure = {
     value: r.capillaryPressure,
     method:
@@ -431,7 +450,7 @@ export function evaluateVariant(raw: VariantInputs | unknown, options: EvaluateV
   let bands: VariantResultsOk['bands'] = null;
   let tornadoOut: VariantResultsOk['tornado'] = null;
   if (hasTolerances(inputs)) {
-    const built = tolerancesOutputs(inputs, nominal, ctx, r, times, tolerances, samples, seed, warnings);
+    const built = tolerancesOutputs(inputs, nominal, ctx, r, times, tolerances, samples, seed, warnings, bandParts);
     bands = built.bands;
     tornadoOut = built.tornado;
   }
@@ -502,31 +521,28 @@ export function evaluateVariant(raw: VariantInputs | unknown, options: EvaluateV
   };
 }
 
-/** Bands of the curve and key scalars, and the tornado of the height at the last reading time. */
-function tolerancesOutputs(
-  inputs: VariantInputs,
-  nominal: VariantParameters,
-  ctx: ResolveContext,
-  r: Resolved,
-  times: Float64Array,
-  tolerances: Partial<Record<ToleranceParameter, Tolerance>>,
-  samples: number,
-  seed: number,
-  warnings: ModelWarning[],
-): { bands: NonNullable<VariantResultsOk['bands']>; tornado: VariantResultsOk['tornado'] } {
+/** The scalar outputs the band reports beside the curve. */
+interface ScalarDef {
+  readonly key: string;
+  readonly label: string;
+  readonly unit: string;
+  readonly nominal: number | null;
+  readonly get: (x: Resolved) => number;
+}
+
+/** The band's model of one variant: its curve (with gravity, clamped at the strip's length) and scalars per parameter set. */
+function bandModel(inputs: VariantInputs, ctx: ResolveContext, r: Resolved, times: Float64Array): { model: BandModel<ToleranceParameter>; scalarDefs: ScalarDef[] } {
   const radial = inputs.configuration === 'radial-spread';
   const L = inputs.dimensions.length;
   const r0 = inputs.dimensions.sourceRadius ?? 0;
-  const readTimes = inputs.checkpoints.times;
   const what = radial ? 'Wetted radius' : 'Height';
-  const scalarDefs: { key: string; label: string; unit: string; nominal: number | null; get: (x: Resolved) => number }[] =
-    readTimes.map((t) => ({
-      key: `height@${t}`,
-      label: `${what} at ${t} s`,
-      unit: 'm',
-      nominal: heightAt(inputs, r, r.b, t),
-      get: (x: Resolved) => heightAt(inputs, x, x.b, t),
-    }));
+  const scalarDefs: ScalarDef[] = inputs.checkpoints.times.map((t) => ({
+    key: `height@${t}`,
+    label: `${what} at ${t} s`,
+    unit: 'm',
+    nominal: heightAt(inputs, r, r.b, t),
+    get: (x: Resolved) => heightAt(inputs, x, x.b, t),
+  }));
   if (r.equilibriumHeight !== null) {
     scalarDefs.push({
       key: 'equilibriumHeight',
@@ -560,8 +576,39 @@ function tolerancesOutputs(
       for (let j = 0; j < scalarDefs.length; j++) scalars[j] = scalarDefs[j].get(x);
     },
   };
+  return { model, scalarDefs };
+}
+
+/**
+ * Bands of the curve and key scalars, and the tornado of the height at the last reading time. The band comes
+ * from `parts` when the caller computed it in parts (on other threads), else it is computed here.
+ */
+function tolerancesOutputs(
+  inputs: VariantInputs,
+  nominal: VariantParameters,
+  ctx: ResolveContext,
+  r: Resolved,
+  times: Float64Array,
+  tolerances: Partial<Record<ToleranceParameter, Tolerance>>,
+  samples: number,
+  seed: number,
+  warnings: ModelWarning[],
+  parts: readonly BandPart[] | undefined,
+): { bands: NonNullable<VariantResultsOk['bands']>; tornado: VariantResultsOk['tornado'] } {
+  const radial = inputs.configuration === 'radial-spread';
+  const readTimes = inputs.checkpoints.times;
+  const what = radial ? 'Wetted radius' : 'Height';
+  const { model, scalarDefs } = bandModel(inputs, ctx, r, times);
   const nominalRecord = nominal as Record<ToleranceParameter, number>;
-  const band = percentileBands(model, nominalRecord, tolerances, samples, seed);
+  let band: BandResult;
+  if (parts) {
+    band = mergeBandParts(parts);
+    if (band.samples !== samples || parts[0].points !== model.points || parts[0].scalars !== model.scalars) {
+      throw new RangeError('The band parts were computed for other options or another variant.');
+    }
+  } else {
+    band = percentileBands(model, nominalRecord, tolerances, samples, seed);
+  }
   warnings.push(...band.warnings);
   const scalars: ScalarBand[] = scalarDefs.map((d, j) => ({
     key: d.key,

@@ -2,8 +2,8 @@
 export * from './variant';
 export { VARIANT_FIELDS, TOLERANCE_FIELDS, variantField, type VariantFieldInfo } from './fields';
 export { readVariantInputs } from './read-inputs';
-export { evaluateVariant, curveTimes } from './evaluate';
-export { percentileBands, type BandModel, type BandResult } from './band';
+export { evaluateVariant, variantBandPart, curveTimes } from './evaluate';
+export { percentileBands, bandPart, mergeBandParts, type BandModel, type BandPart, type BandResult } from './band';
 export { keyFigures, compareKeyFigures, type KeyFigure, type ComparedFigure, type ComparedValue, type ComparableVariant, type BetterDirection } from './key-figures';
 export { describeInputs, type VariantInputRow } from './describe';
 export { VARIANT_EQUATIONS } from './equations';
