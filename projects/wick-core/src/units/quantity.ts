@@ -82,6 +82,8 @@ function parseUnit(text: string): RuntimeUnit {
 const MAX_CACHE = 512;
 const ZERO_VECTOR: readonly number[] = [0, 0, 0, 0, 0, 0, 0, 0, 0];
 const cache = new Map<string, UnitEntry>();
+/** The same entries by the text as written, so that a repeated unit skips even the normalisation (live results format dozens of values per keystroke). */
+const textCache = new Map<string, UnitEntry>();
 
 function isUnknownUnitMessage(message: string): boolean {
   return /not found/i.test(message);
@@ -89,9 +91,11 @@ function isUnknownUnitMessage(message: string): boolean {
 
 /** Parses a bare unit string once and caches its affine map to SI. */
 function unitEntry(unitText: string, original: string): UnitEntry {
+  const seen = textCache.get(unitText);
+  if (seen) return seen;
   const key = normaliseUnit(unitText);
   const hit = cache.get(key);
-  if (hit) return hit;
+  if (hit) return remember(unitText, hit);
 
   let entry: UnitEntry;
   if (key === '') {
@@ -140,6 +144,12 @@ function unitEntry(unitText: string, original: string): UnitEntry {
   }
   if (cache.size >= MAX_CACHE) cache.clear();
   cache.set(key, entry);
+  return remember(unitText, entry);
+}
+
+function remember(unitText: string, entry: UnitEntry): UnitEntry {
+  if (textCache.size >= MAX_CACHE) textCache.clear();
+  textCache.set(unitText, entry);
   return entry;
 }
 
@@ -325,5 +335,6 @@ export function formatQuantity(si: number, unit: string, significant = 4): strin
 /** For tests and long-running servers: forget cached unit parses. */
 export function clearUnitCache(): void {
   cache.clear();
+  textCache.clear();
   labelCache.clear();
 }
