@@ -1,7 +1,7 @@
 import { DomainError } from '../errors';
 import { gravityCurve } from '../washburn/gravity';
 import { bandPart, mergeBandParts, percentileBands, type BandModel, type BandPart, type BandResult } from './band';
-import { curveTimes, evaluateVariant, variantBandPart } from './evaluate';
+import { curveTimes, evaluateVariant, variantBandModel, variantBandPart } from './evaluate';
 import { FIXTURE_INPUTS } from './fixture/cases';
 import type { EvaluateVariantOptions, VariantInputs } from './variant';
 
@@ -144,5 +144,56 @@ describe('evaluateVariant with its band computed in parts', () => {
     const c = withTolerances[0];
     const parts = [variantBandPart(c.inputs, { ...options, curvePoints: 200 }, 0, 1000)!];
     expect(() => evaluateVariant(c.inputs, options, parts)).toThrowError(RangeError);
+  });
+});
+
+describe('the variant band read point by point (pointwise) equals the curve-by-curve form', () => {
+  const deg = (d: number) => (d * Math.PI) / 180;
+  const base = FIXTURE_INPUTS.find((c) => c.inputs.configuration === 'vertical-strip' && c.inputs.tolerances)!.inputs;
+  const cases: { name: string; inputs: VariantInputs }[] = [
+    ...FIXTURE_INPUTS.filter((c) => c.inputs.tolerances && c.inputs.configuration !== 'radial-spread'),
+    // Strip length reached by some samples and not by others: the clamp decides per sample.
+    { name: 'a short strip that part of the samples fill', inputs: { ...base, dimensions: { ...base.dimensions, length: 0.03, duration: 900 } } },
+    // Without gravity along the flow (b = 0): no equilibrium, no saturated tail.
+    { name: 'a horizontal strip', inputs: { ...base, configuration: 'horizontal-strip' } },
+    // Contact angles near 90° in the tolerance: some samples do not wet and are refused.
+    { name: 'samples that do not wet', inputs: { ...base, tolerances: { contactAngle: { kind: 'uniform', min: deg(80), max: deg(95) } } } },
+  ];
+  const options: EvaluateVariantOptions = { curvePoints: 300, samples: 400, seed: 4 };
+
+  for (const c of cases) {
+    it(`gives the same curve at every point for every sample: ${c.name}`, () => {
+      const { model, nominal } = variantBandModel(c.inputs, options)!;
+      expect(model.pointwise).toBeDefined();
+      const pw = model.pointwise!;
+      const params = { ...nominal };
+      const curve = new Float64Array(model.points);
+      const scal = new Float64Array(model.scalars);
+      const coef = new Float64Array(pw.width);
+      const scal2 = new Float64Array(model.scalars);
+      const row = new Float64Array(1);
+      model.evaluate(params, curve, scal);
+      pw.prepare(params, coef, 0, scal2);
+      expect(Array.from(scal2)).toEqual(Array.from(scal));
+      for (let i = 0; i < model.points; i++) {
+        pw.fill(i, coef, 1, row);
+        expect(row[0]).toBe(curve[i]);
+      }
+    });
+
+    it(`gives exactly the same band, whole and in parts: ${c.name}`, () => {
+      const { model, nominal, tolerances: tol } = variantBandModel(c.inputs, options)!;
+      const stored: typeof model = { points: model.points, scalars: model.scalars, evaluate: (p, o, s) => model.evaluate(p, o, s) };
+      const whole = percentileBands(stored, nominal, tol, 400, 4);
+      expectSameBand(percentileBands(model, nominal, tol, 400, 4), whole);
+      const parts = split(400, [170]).map(([from, to]) => bandPart(model, nominal, tol, 400, 4, from, to));
+      expectSameBand(mergeBandParts(parts), whole);
+    });
+  }
+
+  it('leaves radial spreading to the curve-by-curve form', () => {
+    const radial = FIXTURE_INPUTS.find((c) => c.inputs.configuration === 'radial-spread' && c.inputs.tolerances);
+    expect(radial).toBeDefined();
+    expect(variantBandModel(radial!.inputs, options)!.model.pointwise).toBeUndefined();
   });
 });

@@ -5,10 +5,11 @@
  * Sampling is the tolerance family's, draw for draw: inputs sorted by name, each prepared with
  * `prepareTolerance` and drawn from `createRng(seed)` in that order, so the samples, and hence the
  * percentiles, are exactly those of `monteCarloCurve` (the spec checks equality). What differs is the
- * bookkeeping: curves are stored point-major through a small sample-major block, the points after the band
- * levels off copy the last statistics, and each point's samples are kept in the order of the previous point
- * and re-sorted by insertion. Wicking curves of one variant rarely cross, so
- * the re-sort is almost linear, where a fresh quickselect per point costs several passes.
+ * bookkeeping: a model that can give its curves point by point (`pointwise`) has each point's row of all
+ * samples computed as the statistics need it; any other model's curves are stored point-major through a small
+ * sample-major block. Points where no sample changes copy the previous statistics, and each point's samples are
+ * kept in the order of the previous point and re-sorted by insertion. Wicking curves of one variant rarely
+ * cross, so the re-sort is almost linear, where a fresh quickselect per point costs several passes.
  * Percentiles are Hyndman & Fan definition 7 (the tolerance family's `percentileSorted`);
  * JCGM 101:2008 §7 for the method. Samples the model refuses (DomainError) are counted and left out.
  */
@@ -27,6 +28,24 @@ export interface BandModel<K extends string> {
    * parameters are outside the model's validity. Must not keep `params`.
    */
   evaluate(params: Readonly<Record<K, number>>, curve: Float64Array, scalars: Float64Array): void;
+  /**
+   * The same curves point by point, when the model can give them so: the band then reads each point's values
+   * of all samples straight into the statistics, with no million-value store to fill and transpose.
+   */
+  readonly pointwise?: PointwiseCurves<K>;
+}
+
+/** A band model's curves read one point at a time for all samples (see {@link BandModel.pointwise}). */
+export interface PointwiseCurves<K extends string> {
+  /** Numbers kept per sample. */
+  readonly width: number;
+  /**
+   * Checks one parameter set as `evaluate` would (throwing the same DomainError), keeps what its curve needs in
+   * `coef[at … at + width)` and writes its scalars. A set it accepts must have a finite curve at every point.
+   */
+  prepare(params: Readonly<Record<K, number>>, coef: Float64Array, at: number, scalars: Float64Array): void;
+  /** `row[k]` = point i of the curve of the k-th prepared sample (k < count), exactly the value `evaluate` gives. */
+  fill(i: number, coef: Float64Array, count: number, row: Float64Array): void;
 }
 
 export interface BandResult {
@@ -101,11 +120,17 @@ export function percentileBands<K extends string>(
   const p90 = new Float64Array(m);
   const col = new Float64Array(n);
   sortPoints(run, () => col, (i, c) => {
+    if (c === null) {
+      // Every sample as at the previous point (a levelled-off stretch): the same percentiles.
+      p10[i] = p10[i - 1];
+      p50[i] = p50[i - 1];
+      p90[i] = p90[i - 1];
+      return;
+    }
     p10[i] = percentileSorted(c, 0.1, n);
     p50[i] = percentileSorted(c, 0.5, n);
     p90[i] = percentileSorted(c, 0.9, n);
   });
-  levelOff(p10, p50, p90, run.lastChange);
   return {
     samples,
     valid: n,
@@ -135,20 +160,30 @@ export function bandPart<K extends string>(
   }
   const run = sampleCurves(model, nominal, tolerances, samples, seed, from, to);
   const n = run.valid;
-  const rows = n === 0 ? 0 : run.lastChange + 1;
-  const sorted = new Float64Array(rows * n);
-  sortPoints(run, (i) => sorted.subarray(i * n, (i + 1) * n));
+  const m = model.points;
+  const sorted = new Float64Array(n === 0 ? 0 : m * n);
+  // Rows that repeat the previous point are filled in only when a later point changes again; trailing ones are
+  // left out (the merge reads the last row for them).
+  let repeats = 0;
+  const lastChange = sortPoints(run, (i) => sorted.subarray(i * n, (i + 1) * n), (i, c) => {
+    if (c === null) {
+      repeats++;
+      return;
+    }
+    for (let r = i - repeats; r < i; r++) sorted.copyWithin(r * n, (i - repeats - 1) * n, (i - repeats) * n);
+    repeats = 0;
+  });
   return {
     samples,
     from,
     to,
-    points: model.points,
+    points: m,
     scalars: model.scalars,
     valid: n,
     failed: run.failed,
     firstFailure: run.firstFailure,
-    lastChange: run.lastChange,
-    sorted,
+    lastChange,
+    sorted: sorted.subarray(0, n === 0 ? 0 : (lastChange + 1) * n),
     scalarValues: run.scalarValues.slice(0, n * model.scalars),
     warnings: run.warnings,
   };
@@ -209,17 +244,20 @@ export function mergeBandParts(parts: readonly BandPart[]): BandResult {
   };
 }
 
+/** A run's valid samples, read point by point. */
 interface SampledRun {
-  /** Point-major curves of the valid samples, row length `stride` (the slice's size), first `valid` used. */
-  readonly store: Float64Array;
-  readonly stride: number;
   readonly points: number;
   readonly valid: number;
   readonly failed: number;
   readonly firstFailure: { readonly index: number; readonly message: string } | null;
-  readonly lastChange: number;
+  /** The valid samples' scalars, sample-major (`valid` × scalars; the array may be longer). */
   readonly scalarValues: Float64Array;
   readonly warnings: ModelWarning[];
+  /**
+   * Point i's values of the valid samples, in sample order, at `data[offset …]`; null when every sample has
+   * the value it had at point i − 1 (never for point 0). Valid until the next call.
+   */
+  row(i: number): { readonly data: Float64Array; readonly offset: number } | null;
 }
 
 /** Draws the whole run's parameter sets in order and evaluates those of samples `from`…`to`. */
@@ -233,7 +271,6 @@ function sampleCurves<K extends string>(
   to: number,
 ): SampledRun {
   const m = model.points;
-  const q = model.scalars;
   if (samples * m > MAX_VALUES) {
     throw new DomainError('out-of-range', `samples × curve points must not exceed ${MAX_VALUES}.`, 'samples');
   }
@@ -245,6 +282,84 @@ function sampleCurves<K extends string>(
   );
   const rng = createRng(seed);
   const work = { ...nominal } as Record<K, number>;
+  const draw = () => {
+    for (let j = 0; j < prepared.length; j++) work[prepared[j].name as K] = prepared[j].sample(rng);
+  };
+  return model.pointwise
+    ? pointwiseRun(model, model.pointwise, work, draw, from, to, warnings)
+    : storedRun(model, work, draw, from, to, warnings);
+}
+
+/**
+ * Samples evaluated point by point: each sample's coefficients once, then every point's row computed when the
+ * statistics ask for it, compared with the previous row to find the points where nothing changes.
+ */
+function pointwiseRun<K extends string>(
+  model: BandModel<K>,
+  pw: PointwiseCurves<K>,
+  work: Record<K, number>,
+  draw: () => void,
+  from: number,
+  to: number,
+  warnings: ModelWarning[],
+): SampledRun {
+  const q = model.scalars;
+  const w = pw.width;
+  const coef = new Float64Array((to - from) * w);
+  const scalarStore = new Float64Array((to - from) * q);
+  const scal = new Float64Array(q);
+  let n = 0;
+  let failed = 0;
+  let firstFailure: { index: number; message: string } | null = null;
+  for (let s = 0; s < to; s++) {
+    draw();
+    if (s < from) continue;
+    try {
+      pw.prepare(work, coef, n * w, scal);
+    } catch (e) {
+      if (!isDomainError(e)) throw e;
+      failed++;
+      firstFailure ??= { index: s, message: e.message };
+      continue;
+    }
+    scalarStore.set(scal, n * q);
+    n++;
+  }
+  let previous = new Float64Array(n);
+  let next = new Float64Array(n);
+  const current = { data: previous, offset: 0 };
+  return {
+    points: model.points,
+    valid: n,
+    failed,
+    firstFailure,
+    scalarValues: scalarStore,
+    warnings,
+    row(i) {
+      pw.fill(i, coef, n, next);
+      if (i > 0) {
+        let same = true;
+        for (let k = 0; k < n && same; k++) same = next[k] === previous[k];
+        if (same) return null;
+      }
+      [previous, next] = [next, previous];
+      current.data = previous;
+      return current;
+    },
+  };
+}
+
+/** Samples evaluated curve by curve into a point-major store (any model). */
+function storedRun<K extends string>(
+  model: BandModel<K>,
+  work: Record<K, number>,
+  draw: () => void,
+  from: number,
+  to: number,
+  warnings: ModelWarning[],
+): SampledRun {
+  const m = model.points;
+  const q = model.scalars;
   const stride = to - from;
   // Point-major store (each point's samples contiguous, as the statistics read them), filled through a
   // small sample-major block so that neither the writes nor the reads stride across megabytes.
@@ -269,7 +384,7 @@ function sampleCurves<K extends string>(
     inBlock = 0;
   };
   for (let s = 0; s < to; s++) {
-    for (let j = 0; j < prepared.length; j++) work[prepared[j].name as K] = prepared[j].sample(rng);
+    draw();
     if (s < from) continue;
     const curve = views[inBlock];
     try {
@@ -299,34 +414,56 @@ function sampleCurves<K extends string>(
     if (++inBlock === BLOCK) flush();
   }
   flush();
-  return { store, stride, points: m, valid: n, failed, firstFailure, lastChange, scalarValues: scalarStore, warnings };
+  const current = { data: store, offset: 0 };
+  return {
+    points: m,
+    valid: n,
+    failed,
+    firstFailure,
+    scalarValues: scalarStore,
+    warnings,
+    row(i) {
+      if (i > lastChange) return null;
+      current.offset = i * stride;
+      return current;
+    },
+  };
 }
 
 /**
- * Hands each point 0…lastChange's valid values to `visit`, sorted ascending in `rowFor(i)` (its first `valid`
- * entries): a reused buffer, or the point's row of a part's output so that nothing is copied afterwards.
+ * Hands each point's valid values to `visit`, sorted ascending in `rowFor(i)` (its first `valid` entries): a
+ * reused buffer, or the point's row of a part's output so that nothing is copied afterwards; `visit` gets null
+ * for a point where every sample repeats the previous point. Returns the last point with a change.
  * Each point's samples are kept in the order of the previous point and re-sorted by insertion: wicking curves
  * of one variant rarely cross, so that is almost linear where a fresh sort per point costs several passes.
  */
-function sortPoints(run: SampledRun, rowFor: (i: number) => Float64Array, visit?: (i: number, col: Float64Array) => void): void {
-  const { store, stride, valid: n } = run;
-  if (n === 0) return;
+function sortPoints(run: SampledRun, rowFor: (i: number) => Float64Array, visit: (i: number, col: Float64Array | null) => void): number {
+  const n = run.valid;
+  if (n === 0) return 0;
   const perm = new Int32Array(n);
   for (let k = 0; k < n; k++) perm[k] = k;
-  for (let i = 0; i <= run.lastChange && i < run.points; i++) {
-    const row = i * stride;
+  let lastChange = 0;
+  for (let i = 0; i < run.points; i++) {
+    const r = run.row(i);
+    if (r === null) {
+      visit(i, null);
+      continue;
+    }
+    lastChange = i;
+    const { data, offset } = r;
     const col = rowFor(i);
-    for (let k = 0; k < n; k++) col[k] = store[row + perm[k]];
+    for (let k = 0; k < n; k++) col[k] = data[offset + perm[k]];
     if (!insertionSortWith(col, perm, n, SHIFT_BUDGET * n)) {
       // Curves crossing en masse: sort this point from scratch instead.
-      const order = Array.from(perm).sort((x, y) => store[row + x] - store[row + y]);
+      const order = Array.from(perm).sort((x, y) => data[offset + x] - data[offset + y]);
       for (let k = 0; k < n; k++) {
         perm[k] = order[k];
-        col[k] = store[row + order[k]];
+        col[k] = data[offset + order[k]];
       }
     }
-    visit?.(i, col);
+    visit(i, col);
   }
+  return lastChange;
 }
 
 /** Points after the last change repeat the last computed percentiles (a levelled-off band; no sorting). */

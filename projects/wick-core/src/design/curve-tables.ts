@@ -3,7 +3,7 @@
  * million times per keystroke. Both are one universal curve scaled per sample, so they are tabulated ONCE from
  * the washburn family's exact solutions and read by cubic Hermite interpolation with exact slopes:
  *
- * - Gravity-restrained rise, h = (a/b)·H(T), T = t·b²/a: the pore-size family's table (gravityCurveInto)
+ * - Gravity-restrained rise, h = (a/b)·H(T), T = t·b²/a: the pore-size family's table (gravityCurveFromRoots)
  *   covers T ≤ 49; beyond T = 40 the exact solution H = 1 + W₀(−e^{−1−T}) equals 1 to double precision
  *   (|W₀(x)| ≤ 2|x| for |x| < 0.1 and e^{−41} < 1e-17), so h = a/b there exactly as the exact function returns it.
  * - Radial spreading, R = r0·F(q), q = 4at/r0²: F is tabulated on ln q ∈ [ln 1e-8, ln 1e9] at 8,192 nodes from
@@ -11,14 +11,17 @@
  *   Hermite error (Δ⁴/384)·max|F⁗| ≈ 1e-13·F (the spec checks 1e-11 against the exact function); outside the
  *   table the exact function is called.
  */
-import { gravityCurveInto } from '../pore-size/gravity-table';
+import { gravityCurveFromRoots, gravityRowCoefficients } from '../pore-size/gravity-table';
 import { radialRadiusUnchecked } from '../washburn/radial';
 
 /** Beyond this dimensionless time H(T) = 1 in double precision. */
 const T_SATURATED = 40;
 
-/** h(tᵢ) for dh/dt = a/h − b into `out` (a > 0, b ≥ 0, times ≥ 0 and ASCENDING, unchecked). */
-export function gravityCurveFast(a: number, b: number, times: Float64Array, out: Float64Array): void {
+/**
+ * h(tᵢ) for dh/dt = a/h − b into `out` (a > 0, b ≥ 0, times ≥ 0 and ASCENDING, unchecked); `rootTimes` holds
+ * √tᵢ, computed once for all the curves of one time grid.
+ */
+export function gravityCurveFast(a: number, b: number, times: Float64Array, rootTimes: Float64Array, out: Float64Array): void {
   const n = times.length;
   // Times ascend (curveTimes): past t = 40 t* the curve is flat at a/b, so only the rising part is evaluated.
   let rising = n;
@@ -28,7 +31,17 @@ export function gravityCurveFast(a: number, b: number, times: Float64Array, out:
     const heq = a / b;
     for (let i = rising; i < n; i++) out[i] = heq;
   }
-  if (rising > 0) gravityCurveInto(a, b, times.subarray(0, rising), out.subarray(0, rising));
+  if (rising > 0) gravityCurveFromRoots(a, b, rootTimes.subarray(0, rising), out.subarray(0, rising));
+}
+
+/**
+ * The pore-size family's row coefficients of one curve (see gravityRowInto) with the saturation time of
+ * {@link gravityCurveFast}, so that a row read point by point equals gravityCurveFast bit for bit. The cap
+ * (coef[at + 4]) stays +∞ for the caller to set.
+ */
+export function gravityCurveCoefficients(a: number, b: number, coef: Float64Array, at: number): void {
+  gravityRowCoefficients(a, b, coef, at);
+  coef[at + 3] = b > 0 ? (T_SATURATED * a) / (b * b) : Number.POSITIVE_INFINITY;
 }
 
 const LN_Q_MIN = Math.log(1e-8);

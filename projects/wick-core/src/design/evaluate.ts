@@ -20,8 +20,9 @@ import { capillaryUptake } from '../washburn/capillary';
 import { gravityCurve, gravityHeightUnchecked, gravityTimeUnchecked } from '../washburn/gravity';
 import { porousStripUptake } from '../washburn/porous-strip';
 import { radialRadiusUnchecked, radialSpreading } from '../washburn/radial';
-import { bandPart, mergeBandParts, percentileBands, type BandModel, type BandPart, type BandResult } from './band';
-import { gravityCurveFast, radialCurveFast } from './curve-tables';
+import { bandPart, mergeBandParts, percentileBands, type BandModel, type BandPart, type BandResult, type PointwiseCurves } from './band';
+import { GRAVITY_ROW_WIDTH, gravityRowInto, gravityRowValue } from '../pore-size/gravity-table';
+import { gravityCurveCoefficients, gravityCurveFast, radialCurveFast } from './curve-tables';
 import { VARIANT_EQUATIONS, permeabilityEquation } from './equations';
 import { TOLERANCE_FIELDS } from './fields';
 import { readVariantInputs } from './read-inputs';
@@ -338,6 +339,20 @@ export function variantBandPart(raw: VariantInputs | unknown, options: EvaluateV
 }
 
 /**
+ * The band model of a variant with its nominal parameters and tolerances, or null when it has no band (for
+ * checks that the model's two forms agree).
+ */
+export function variantBandModel(
+  raw: VariantInputs | unknown,
+  options: EvaluateVariantOptions,
+): { model: BandModel<ToleranceParameter>; nominal: Record<ToleranceParameter, number>; tolerances: Partial<Record<ToleranceParameter, Tolerance>> } | null {
+  const { inputs, points, ctx, r, nominal, tolerances } = prepareVariant(raw, options);
+  if (!r.wetting || !hasTolerances(inputs)) return null;
+  const { model } = bandModel(inputs, ctx, r, curveTimes(inputs.dimensions.duration, points));
+  return { model, nominal: nominal as Record<ToleranceParameter, number>, tolerances };
+}
+
+/**
  * Evaluates one design variant.
  *
  * @param raw the variant's inputs (checked by {@link readVariantInputs}; SI values).
@@ -559,9 +574,13 @@ function bandModel(inputs: VariantInputs, ctx: ResolveContext, r: Resolved, time
     );
   }
   const m = times.length;
+  const rootTimes = times.map(Math.sqrt);
+  // A rising curve that ends below the strip's length never reached it: no clamping.
+  const clampAt = (end: number) => (L !== undefined && !(end < L * (1 - 1e-9)) ? L : Number.POSITIVE_INFINITY);
   const model: BandModel<ToleranceParameter> = {
     points: m,
     scalars: scalarDefs.length,
+    pointwise: radial ? undefined : gravityPointwise(ctx, times, rootTimes, scalarDefs, clampAt),
     evaluate(params, curve, scalars) {
       const x = resolveVariant(params, ctx);
       if (!x.wetting) throw new DomainError('out-of-range', 'no spontaneous uptake at these input values', 'contactAngle');
@@ -569,14 +588,46 @@ function bandModel(inputs: VariantInputs, ctx: ResolveContext, r: Resolved, time
       if (radial) {
         radialCurveFast(x.a, r0, times, curve);
       } else {
-        gravityCurveFast(x.a, x.b, times, curve);
-        // A rising curve that ends below the strip's length never reached it: no clamping pass.
-        if (L !== undefined && !(curve[m - 1] < L * (1 - 1e-9))) for (let i = 0; i < m; i++) curve[i] = Math.min(curve[i], L);
+        gravityCurveFast(x.a, x.b, times, rootTimes, curve);
+        const clamp = clampAt(curve[m - 1]);
+        if (clamp < Number.POSITIVE_INFINITY) for (let i = 0; i < m; i++) curve[i] = Math.min(curve[i], clamp);
       }
       for (let j = 0; j < scalarDefs.length; j++) scalars[j] = scalarDefs[j].get(x);
     },
   };
   return { model, scalarDefs };
+}
+
+/**
+ * The band's gravity curves point by point (curve-tables keeps the two forms bit for bit equal), so the band
+ * reads each point straight into its statistics. Kept per sample: the curve's coefficients and its clamp.
+ */
+function gravityPointwise(
+  ctx: ResolveContext,
+  times: Float64Array,
+  rootTimes: Float64Array,
+  scalarDefs: readonly ScalarDef[],
+  clampAt: (end: number) => number,
+): PointwiseCurves<ToleranceParameter> {
+  const last = times.length - 1;
+  return {
+    width: GRAVITY_ROW_WIDTH,
+    prepare(params, coef, at, scalars) {
+      const x = resolveVariant(params, ctx);
+      if (!x.wetting) throw new DomainError('out-of-range', 'no spontaneous uptake at these input values', 'contactAngle');
+      gravityCurveCoefficients(x.a, x.b, coef, at);
+      const end = gravityRowValue(coef, at, times[last], rootTimes[last]);
+      // Every point is finite when the last one and the early-time bound √(2a)·√t are (the curve rises).
+      if (!Number.isFinite(end) || !Number.isFinite(coef[at] * rootTimes[last])) {
+        throw new DomainError('out-of-range', 'the model returned a non-finite value');
+      }
+      coef[at + 4] = clampAt(end);
+      for (let j = 0; j < scalarDefs.length; j++) scalars[j] = scalarDefs[j].get(x);
+    },
+    fill(i, coef, count, row) {
+      gravityRowInto(coef, count, times[i], rootTimes[i], row);
+    },
+  };
 }
 
 /**

@@ -20,6 +20,7 @@ const NODES = 4096;
 const DS = S_MAX / NODES;
 
 let values: Float64Array | null = null;
+/** Slopes times the node spacing, DS·G′(s), as the Hermite basis uses them. */
 let slopes: Float64Array | null = null;
 
 function table(): { g: Float64Array; d: Float64Array } {
@@ -30,12 +31,12 @@ function table(): { g: Float64Array; d: Float64Array } {
     const g = new Float64Array(NODES + 1);
     const d = new Float64Array(NODES + 1);
     g[0] = 1;
-    d[0] = -Math.SQRT2 / 3;
+    d[0] = DS * (-Math.SQRT2 / 3);
     for (let k = 1; k <= NODES; k++) {
       const s = k * DS;
       const dh = 2 * s * (1 / h[k] - 1);
       g[k] = h[k] / (Math.SQRT2 * s);
-      d[k] = (s * dh - h[k]) / (Math.SQRT2 * s * s);
+      d[k] = (DS * (s * dh - h[k])) / (Math.SQRT2 * s * s);
     }
     values = g;
     slopes = d;
@@ -43,34 +44,89 @@ function table(): { g: Float64Array; d: Float64Array } {
   return { g: values, d: slopes };
 }
 
+/** Reusable square roots of the times for {@link gravityCurveInto} (no allocation per call). */
+let roots = new Float64Array(0);
+
 /**
- * One capillary-rise curve h(tᵢ) = √(2a tᵢ)·G(b tᵢ^½ / √a) written into `out` (the Monte Carlo band calls
- * this a thousand times per keystroke; the pore-size bundle sums it over classes).
+ * One capillary-rise curve h(tᵢ) = √(2a tᵢ)·G(b tᵢ^½ / √a) written into `out` (the pore-size bundle sums it
+ * over classes).
  */
 export function gravityCurveInto(a: number, b: number, times: ArrayLike<number>, out: Float64Array): void {
   const n = times.length;
-  const { g, d } = table();
-  const root2a = Math.sqrt(2 * a);
-  const sPerRootT = b / Math.sqrt(a);
-  const heq = b > 0 ? a / b : Number.POSITIVE_INFINITY;
-  for (let j = 0; j < n; j++) {
-    const rt = Math.sqrt(times[j]);
-    const u = (sPerRootT * rt) / DS;
-    if (u >= NODES) {
-      out[j] = heq;
-      continue;
-    }
-    const k = Math.floor(u);
-    const x = u - k;
-    const x2 = x * x;
-    const x3 = x2 * x;
-    const G =
-      (2 * x3 - 3 * x2 + 1) * g[k] +
-      (x3 - 2 * x2 + x) * DS * d[k] +
-      (-2 * x3 + 3 * x2) * g[k + 1] +
-      (x3 - x2) * DS * d[k + 1];
-    out[j] = root2a * rt * G;
+  if (roots.length < n) roots = new Float64Array(n);
+  for (let j = 0; j < n; j++) roots[j] = Math.sqrt(times[j]);
+  gravityCurveFromRoots(a, b, roots.subarray(0, n), out);
+}
+
+/**
+ * {@link gravityCurveInto} from the square roots of the times, √tᵢ: the Monte Carlo band evaluates a thousand
+ * curves per keystroke on one time grid, so it takes the roots once instead of a million times.
+ */
+export function gravityCurveFromRoots(a: number, b: number, rootTimes: ArrayLike<number>, out: Float64Array): void {
+  const n = rootTimes.length;
+  gravityPointCoefficients(a, b, coefficients, 0);
+  const root2a = coefficients[0];
+  const perRootT = coefficients[1];
+  const heq = coefficients[2];
+  for (let j = 0; j < n; j++) out[j] = gravityPoint(root2a, perRootT, heq, rootTimes[j]);
+}
+
+const coefficients = new Float64Array(3);
+
+/**
+ * The three numbers {@link gravityPoint} needs for dh/dt = a/h − b, written at `coef[at]`: √(2a), b/(√a·Δs)
+ * (so that u = s/Δs is one product) and h_eq = a/b (+∞ without gravity). Builds the table on first use.
+ */
+export function gravityPointCoefficients(a: number, b: number, coef: Float64Array, at: number): void {
+  table();
+  coef[at] = Math.sqrt(2 * a);
+  coef[at + 1] = b / Math.sqrt(a) / DS;
+  coef[at + 2] = b > 0 ? a / b : Number.POSITIVE_INFINITY;
+}
+
+/**
+ * Numbers per curve for {@link gravityRowInto}: those of {@link gravityPointCoefficients}, then a time after
+ * which the curve is taken as h_eq and a cap on its height (both +∞ until the caller sets them).
+ */
+export const GRAVITY_ROW_WIDTH = 5;
+
+export function gravityRowCoefficients(a: number, b: number, coef: Float64Array, at: number): void {
+  gravityPointCoefficients(a, b, coef, at);
+  coef[at + 3] = Number.POSITIVE_INFINITY;
+  coef[at + 4] = Number.POSITIVE_INFINITY;
+}
+
+/** One curve of {@link gravityRowInto} at time t (√t = rootT). */
+export function gravityRowValue(coef: Float64Array, at: number, t: number, rootT: number): number {
+  const h = t > coef[at + 3] ? coef[at + 2] : gravityPoint(coef[at], coef[at + 1], coef[at + 2], rootT);
+  return Math.min(h, coef[at + 4]);
+}
+
+/**
+ * `count` curves at ONE time t (√t = rootT) into `row`, from their {@link gravityRowCoefficients}: the Monte
+ * Carlo band reads a point of all its samples at a time. The loop stays in this module with the kernel it
+ * calls, so that it compiles to one tight loop under any module loader.
+ */
+export function gravityRowInto(coef: Float64Array, count: number, t: number, rootT: number, row: Float64Array): void {
+  for (let k = 0, at = 0; k < count; k++, at += GRAVITY_ROW_WIDTH) {
+    const h = t > coef[at + 3] ? coef[at + 2] : gravityPoint(coef[at], coef[at + 1], coef[at + 2], rootT);
+    row[k] = Math.min(h, coef[at + 4]);
   }
+}
+
+/** h at √t = `rootT` from {@link gravityPointCoefficients} (the table must exist: coefficients build it). */
+export function gravityPoint(root2a: number, perRootT: number, heq: number, rootT: number): number {
+  const u = perRootT * rootT;
+  if (u >= NODES) return heq;
+  const g = values as Float64Array;
+  const d = slopes as Float64Array;
+  const k = Math.floor(u);
+  const x = u - k;
+  const x2 = x * x;
+  const x3 = x2 * x;
+  const g0 = g[k];
+  // Cubic Hermite: h00·g0 + h01·g1 = g0 + (3x² − 2x³)(g1 − g0), slopes already scaled by Δs.
+  return root2a * rootT * (g0 + x2 * (3 - 2 * x) * (g[k + 1] - g0) + (x3 - 2 * x2 + x) * d[k] + (x3 - x2) * d[k + 1]);
 }
 
 /** Reusable row for {@link accumulateGravityCurve} when the caller wants no class curve (no allocation per call). */
