@@ -35,7 +35,7 @@ import { Chart } from './chart';
 import { DesignsApi } from './designs-api';
 import { show } from './format';
 import { LibraryLookup, type LibraryChoice } from './library-lookup';
-import { evaluateLive, type LiveResult } from './live-evaluation';
+import { LiveEvaluator, type LiveResult } from './live-evaluation';
 import { MASS_LAYOUT, PSD_LAYOUT, massTraces, psdTraces, tornadoLayout, tornadoTraces, uptakeLayout, uptakeTraces } from './plots';
 import { LiquidCard } from './liquid-card';
 import { QuantityListField } from './quantity-list-field';
@@ -97,6 +97,7 @@ const STRUCTURE_FIELDS = [
     UnitInput,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
+  providers: [LiveEvaluator],
   templateUrl: './variant-editor.html',
   styleUrl: './variant-editor.scss',
 })
@@ -111,6 +112,7 @@ export class VariantEditor {
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
   private readonly fb = inject(NonNullableFormBuilder);
+  private readonly evaluator = inject(LiveEvaluator);
 
   protected readonly form = variantForm(this.fb);
   protected readonly configurations = VARIANT_CONFIGURATIONS;
@@ -153,6 +155,13 @@ export class VariantEditor {
   protected readonly ok = computed<VariantResultsOk | null>(() => {
     const l = this.live();
     return l?.kind === 'results' && l.results.status === 'ok' ? l.results : null;
+  });
+  /** Where the results shown were computed. */
+  protected readonly origin = computed(() => {
+    const l = this.live();
+    if (l?.kind === 'results' && l.source === 'server') return 'Saved results (computed on the server).';
+    const threads = l?.kind === 'results' ? (l.threads ?? 1) : 1;
+    return threads > 1 ? `Computed in your browser (the tolerance band on ${threads} threads).` : 'Computed in your browser.';
   });
   /** Time axis of the main chart: early rise reads better on a log axis. */
   protected readonly timeAxis = signal<'linear' | 'log'>('linear');
@@ -381,10 +390,26 @@ export class VariantEditor {
     this.recompute$.next();
   }
 
+  /** The latest recompute started: an older one that finishes later (shared with workers) is not shown. */
+  private evaluateRun = 0;
+
   private evaluate(): void {
-    this.evaluateStartedAt = performance.now();
+    const run = ++this.evaluateRun;
+    const startedAt = performance.now();
     const inputs = toInputs(this.form.getRawValue(), this.currentExtras());
-    const live = evaluateLive(inputs, { ...DEFAULT_VARIANT_OPTIONS, curvePoints: this.curvePoints() });
+    const live = this.evaluator.evaluate(inputs, { ...DEFAULT_VARIANT_OPTIONS, curvePoints: this.curvePoints() });
+    if (!(live instanceof Promise)) {
+      this.showLive(live, startedAt);
+      return;
+    }
+    live.then(
+      (l) => run === this.evaluateRun && this.showLive(l, startedAt),
+      (e: unknown) => run === this.evaluateRun && this.message.set({ kind: 'error', text: `The live computation failed: ${e instanceof Error ? e.message : String(e)}` }),
+    );
+  }
+
+  private showLive(live: LiveResult, startedAt: number): void {
+    this.evaluateStartedAt = startedAt;
     this.live.set(live);
     this.recomputes.update((n) => n + 1);
     this.showFieldError(live.kind === 'invalid' ? live : null);
