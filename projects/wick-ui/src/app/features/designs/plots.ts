@@ -67,14 +67,15 @@ export function uptakeLayout(r: VariantResultsOk, timeAxis: 'linear' | 'log' = '
   const top = Math.max(...r.curves.height, ...(r.bands ? r.bands.curve.p90 : []), eq ?? 0) * 1000;
   const tEnd = t[t.length - 1];
   // Tick labels may overhang the plot area (the margins leave room): plotly otherwise measures every label on
-  // every redraw to hide the ones that would, a tenth of each keystroke's replot.
+  // every redraw to hide the ones that would, a tenth of each keystroke's replot. The axis type is given, or
+  // plotly scans the data for dates on every redraw to guess it.
   const ticks = { ticklabeloverflow: 'allow' };
   return {
     xaxis:
       timeAxis === 'log'
         ? { ...ticks, title: { text: 'Time (s, log)' }, type: 'log', range: [Math.log10(Math.max(t[1], tEnd * 1e-6)), Math.log10(tEnd)] }
-        : { ...ticks, title: { text: 'Time (s)' }, zeroline: false, range: [0, tEnd] },
-    yaxis: { ...ticks, title: { text: radial ? 'Wetted radius (mm)' : 'Wetted length (mm)' }, range: [0, niceCeil(top * 1.15)] },
+        : { ...ticks, title: { text: 'Time (s)' }, type: 'linear', zeroline: false, range: [0, tEnd] },
+    yaxis: { ...ticks, title: { text: radial ? 'Wetted radius (mm)' : 'Wetted length (mm)' }, type: 'linear', range: [0, niceCeil(top * 1.15)] },
     shapes:
       eq === null
         ? []
