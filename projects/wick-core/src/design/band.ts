@@ -282,13 +282,36 @@ function sampleCurves<K extends string>(
   );
   const rng = createRng(seed);
   const work = { ...nominal } as Record<K, number>;
-  const draw = () => {
-    for (let j = 0; j < prepared.length; j++) work[prepared[j].name as K] = prepared[j].sample(rng);
+  // Every sample of the run is drawn in order; those of from…to are handed to `take`, and the ones it refuses
+  // (a DomainError, or a reason it returns) are counted with the run's first refusal.
+  const each: EachSample<K> = (take) => {
+    let failed = 0;
+    let firstFailure: { index: number; message: string } | null = null;
+    for (let s = 0; s < to; s++) {
+      for (let j = 0; j < prepared.length; j++) work[prepared[j].name as K] = prepared[j].sample(rng);
+      if (s < from) continue;
+      let refused: string | null;
+      try {
+        refused = take(work);
+      } catch (e) {
+        if (!isDomainError(e)) throw e;
+        refused = e.message;
+      }
+      if (refused !== null) {
+        failed++;
+        firstFailure ??= { index: s, message: refused };
+      }
+    }
+    return { failed, firstFailure };
   };
-  return model.pointwise
-    ? pointwiseRun(model, model.pointwise, work, draw, from, to, warnings)
-    : storedRun(model, work, draw, from, to, warnings);
+  return model.pointwise ? pointwiseRun(model, model.pointwise, each, to - from, warnings) : storedRun(model, each, to - from, warnings);
 }
+
+/** Runs `take` on each sample of a slice; `take` returns null to keep it or why it is refused. */
+type EachSample<K extends string> = (take: (params: Readonly<Record<K, number>>) => string | null) => {
+  failed: number;
+  firstFailure: { index: number; message: string } | null;
+};
 
 /**
  * Samples evaluated point by point: each sample's coefficients once, then every point's row computed when the
@@ -297,34 +320,22 @@ function sampleCurves<K extends string>(
 function pointwiseRun<K extends string>(
   model: BandModel<K>,
   pw: PointwiseCurves<K>,
-  work: Record<K, number>,
-  draw: () => void,
-  from: number,
-  to: number,
+  each: EachSample<K>,
+  size: number,
   warnings: ModelWarning[],
 ): SampledRun {
   const q = model.scalars;
   const w = pw.width;
-  const coef = new Float64Array((to - from) * w);
-  const scalarStore = new Float64Array((to - from) * q);
+  const coef = new Float64Array(size * w);
+  const scalarStore = new Float64Array(size * q);
   const scal = new Float64Array(q);
   let n = 0;
-  let failed = 0;
-  let firstFailure: { index: number; message: string } | null = null;
-  for (let s = 0; s < to; s++) {
-    draw();
-    if (s < from) continue;
-    try {
-      pw.prepare(work, coef, n * w, scal);
-    } catch (e) {
-      if (!isDomainError(e)) throw e;
-      failed++;
-      firstFailure ??= { index: s, message: e.message };
-      continue;
-    }
+  const { failed, firstFailure } = each((params) => {
+    pw.prepare(params, coef, n * w, scal);
     scalarStore.set(scal, n * q);
     n++;
-  }
+    return null;
+  });
   let previous = new Float64Array(n);
   let next = new Float64Array(n);
   const current = { data: previous, offset: 0 };
@@ -350,17 +361,9 @@ function pointwiseRun<K extends string>(
 }
 
 /** Samples evaluated curve by curve into a point-major store (any model). */
-function storedRun<K extends string>(
-  model: BandModel<K>,
-  work: Record<K, number>,
-  draw: () => void,
-  from: number,
-  to: number,
-  warnings: ModelWarning[],
-): SampledRun {
+function storedRun<K extends string>(model: BandModel<K>, each: EachSample<K>, stride: number, warnings: ModelWarning[]): SampledRun {
   const m = model.points;
   const q = model.scalars;
-  const stride = to - from;
   // Point-major store (each point's samples contiguous, as the statistics read them), filled through a
   // small sample-major block so that neither the writes nor the reads stride across megabytes.
   const store = scratch(stride * m);
@@ -370,8 +373,6 @@ function storedRun<K extends string>(
   const scal = new Float64Array(q);
   let n = 0;
   let inBlock = 0;
-  let failed = 0;
-  let firstFailure: { index: number; message: string } | null = null;
   // Largest index at which any valid curve still changes: beyond it every point's samples equal the previous
   // point's (a levelled-off band), so those points need no statistics of their own.
   let lastChange = 0;
@@ -383,18 +384,9 @@ function storedRun<K extends string>(
     n += inBlock;
     inBlock = 0;
   };
-  for (let s = 0; s < to; s++) {
-    draw();
-    if (s < from) continue;
+  const { failed, firstFailure } = each((params) => {
     const curve = views[inBlock];
-    try {
-      model.evaluate(work, curve, scal);
-    } catch (e) {
-      if (!isDomainError(e)) throw e;
-      failed++;
-      firstFailure ??= { index: s, message: e.message };
-      continue;
-    }
+    model.evaluate(params, curve, scal);
     // One backward pass: the sum (NaN or ±Infinity anywhere makes it non-finite, one test instead of one per
     // point) and the last index at which this curve still changes.
     let sum = curve[0];
@@ -404,15 +396,12 @@ function storedRun<K extends string>(
       sum += v;
       if (last === 0 && v !== curve[i - 1]) last = i;
     }
-    if (!Number.isFinite(sum)) {
-      failed++;
-      firstFailure ??= { index: s, message: 'the model returned a non-finite value' };
-      continue;
-    }
+    if (!Number.isFinite(sum)) return 'the model returned a non-finite value';
     if (last > lastChange) lastChange = last;
     scalarStore.set(scal, (n + inBlock) * q);
     if (++inBlock === BLOCK) flush();
-  }
+    return null;
+  });
   flush();
   const current = { data: store, offset: 0 };
   return {

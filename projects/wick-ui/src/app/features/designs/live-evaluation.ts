@@ -90,7 +90,7 @@ export class LiveEvaluator {
     const t0 = performance.now();
     const threads = workers.length + 1;
     const edges = this.split(options.samples, threads);
-    const asked = workers.map((w, k) => this.ask(w, { id: 0, inputs, options, from: edges[k + 1], to: edges[k + 2] }));
+    const asked = workers.map((w, k) => this.ask(w, { inputs, options, from: edges[k + 1], to: edges[k + 2] }));
     let own: BandPart | null;
     try {
       own = variantBandPart(inputs, options, 0, edges[1]);
@@ -159,7 +159,7 @@ export class LiveEvaluator {
     return worker;
   }
 
-  private ask(worker: Worker, request: BandWorkerRequest): Promise<BandWorkerMessage> {
+  private ask(worker: Worker, request: Omit<BandWorkerRequest, 'id'>): Promise<BandWorkerMessage> {
     const id = ++this.nextId;
     return new Promise((resolve) => {
       this.waiting.set(id, resolve);
