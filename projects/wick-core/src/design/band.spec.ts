@@ -172,13 +172,17 @@ describe('the variant band read point by point (pointwise) equals the curve-by-c
       const coef = new Float64Array(pw.width);
       const scal2 = new Float64Array(model.scalars);
       const row = new Float64Array(1);
+      const first = Int32Array.of(0);
       model.evaluate(params, curve, scal);
-      pw.prepare(params, coef, 0, scal2);
+      const settled = pw.prepare(params, coef, 0, scal2);
       expect(Array.from(scal2)).toEqual(Array.from(scal));
       for (let i = 0; i < model.points; i++) {
-        pw.fill(i, coef, 1, row);
+        pw.fill(i, coef, first, 1, row);
         expect(row[0]).toBe(curve[i]);
       }
+      // The curve is constant from the point prepare names on (the band reads no further).
+      expect(settled).toBeGreaterThanOrEqual(0);
+      for (let i = settled + 1; i < model.points; i++) expect(curve[i]).toBe(curve[i - 1]);
     });
 
     it(`gives exactly the same band, whole and in parts: ${c.name}`, () => {

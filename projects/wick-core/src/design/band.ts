@@ -42,10 +42,16 @@ export interface PointwiseCurves<K extends string> {
   /**
    * Checks one parameter set as `evaluate` would (throwing the same DomainError), keeps what its curve needs in
    * `coef[at … at + width)` and writes its scalars. A set it accepts must have a finite curve at every point.
+   * Returns a point from which its curve no longer changes (the number of points when that is not known): the
+   * band reads no point past the last of these, since every later row repeats it.
    */
-  prepare(params: Readonly<Record<K, number>>, coef: Float64Array, at: number, scalars: Float64Array): void;
-  /** `row[k]` = point i of the curve of the k-th prepared sample (k < count), exactly the value `evaluate` gives. */
-  fill(i: number, coef: Float64Array, count: number, row: Float64Array): void;
+  prepare(params: Readonly<Record<K, number>>, coef: Float64Array, at: number, scalars: Float64Array): number;
+  /**
+   * `row[k]` = point i of the curve of prepared sample `order[k]` (k < count), exactly the value `evaluate`
+   * gives. The band asks in the order it sorted the samples at the previous point, so that the row arrives
+   * nearly sorted and needs no gathering.
+   */
+  fill(i: number, coef: Float64Array, order: Int32Array, count: number, row: Float64Array): void;
 }
 
 export interface BandResult {
@@ -118,8 +124,9 @@ export function percentileBands<K extends string>(
   const p10 = new Float64Array(m);
   const p50 = new Float64Array(m);
   const p90 = new Float64Array(m);
-  const col = new Float64Array(n);
-  sortPoints(run, () => col, (i, c) => {
+  // Two rows in turn: the one just sorted stays the previous point's while the next is read.
+  const rows = [new Float64Array(n), new Float64Array(n)];
+  sortPoints(run, (_, previous) => (previous === rows[0] ? rows[1] : rows[0]), (i, c) => {
     if (c === null) {
       // Every sample as at the previous point (a levelled-off stretch): the same percentiles.
       p10[i] = p10[i - 1];
@@ -254,10 +261,11 @@ interface SampledRun {
   readonly scalarValues: Float64Array;
   readonly warnings: ModelWarning[];
   /**
-   * Point i's values of the valid samples, in sample order, at `data[offset …]`; null when every sample has
-   * the value it had at point i − 1 (never for point 0). Valid until the next call.
+   * Point i's values of the valid samples into `out`, in the order given (`out[k]` is sample `order[k]`'s).
+   * Returns false, leaving `out` unspecified, when every sample has the value it had at the last point read
+   * (`previous`, in the same order; null for point 0, which is always read).
    */
-  row(i: number): { readonly data: Float64Array; readonly offset: number } | null;
+  rowInOrder(i: number, order: Int32Array, out: Float64Array, previous: Float64Array | null): boolean;
 }
 
 /** Draws the whole run's parameter sets in order and evaluates those of samples `from`…`to`. */
@@ -330,15 +338,15 @@ function pointwiseRun<K extends string>(
   const scalarStore = new Float64Array(size * q);
   const scal = new Float64Array(q);
   let n = 0;
+  // Past this point no sample's curve changes: the rows there repeat it and need not be read.
+  let changesUntil = 0;
   const { failed, firstFailure } = each((params) => {
-    pw.prepare(params, coef, n * w, scal);
+    const settled = pw.prepare(params, coef, n * w, scal);
+    if (settled > changesUntil) changesUntil = settled;
     scalarStore.set(scal, n * q);
     n++;
     return null;
   });
-  let previous = new Float64Array(n);
-  let next = new Float64Array(n);
-  const current = { data: previous, offset: 0 };
   return {
     points: model.points,
     valid: n,
@@ -346,16 +354,12 @@ function pointwiseRun<K extends string>(
     firstFailure,
     scalarValues: scalarStore,
     warnings,
-    row(i) {
-      pw.fill(i, coef, n, next);
-      if (i > 0) {
-        let same = true;
-        for (let k = 0; k < n && same; k++) same = next[k] === previous[k];
-        if (same) return null;
-      }
-      [previous, next] = [next, previous];
-      current.data = previous;
-      return current;
+    rowInOrder(i, order, out, previous) {
+      if (i > changesUntil) return false;
+      pw.fill(i, coef, order, n, out);
+      if (previous === null) return true;
+      for (let k = 0; k < n; k++) if (out[k] !== previous[k]) return true;
+      return false;
     },
   };
 }
@@ -403,7 +407,6 @@ function storedRun<K extends string>(model: BandModel<K>, each: EachSample<K>, s
     return null;
   });
   flush();
-  const current = { data: store, offset: 0 };
   return {
     points: m,
     valid: n,
@@ -411,45 +414,50 @@ function storedRun<K extends string>(model: BandModel<K>, each: EachSample<K>, s
     firstFailure,
     scalarValues: scalarStore,
     warnings,
-    row(i) {
-      if (i > lastChange) return null;
-      current.offset = i * stride;
-      return current;
+    rowInOrder(i, order, out) {
+      if (i > lastChange) return false;
+      const offset = i * stride;
+      for (let k = 0; k < n; k++) out[k] = store[offset + order[k]];
+      return true;
     },
   };
 }
 
 /**
- * Hands each point's valid values to `visit`, sorted ascending in `rowFor(i)` (its first `valid` entries): a
- * reused buffer, or the point's row of a part's output so that nothing is copied afterwards; `visit` gets null
- * for a point where every sample repeats the previous point. Returns the last point with a change.
- * Each point's samples are kept in the order of the previous point and re-sorted by insertion: wicking curves
- * of one variant rarely cross, so that is almost linear where a fresh sort per point costs several passes.
+ * Hands each point's valid values to `visit`, sorted ascending in `rowFor(i, previous)` (its first `valid`
+ * entries): the point's row of a part's output, so that nothing is copied afterwards, or a reused buffer other
+ * than `previous` (the last row sorted); `visit` gets null for a point where every sample repeats the previous
+ * point. Returns the last point with a change. Each point is read in the order the samples had at the previous
+ * point and re-sorted by insertion: wicking curves of one variant rarely cross, so that is almost linear where a
+ * fresh sort per point costs several passes.
  */
-function sortPoints(run: SampledRun, rowFor: (i: number) => Float64Array, visit: (i: number, col: Float64Array | null) => void): number {
+function sortPoints(
+  run: SampledRun,
+  rowFor: (i: number, previous: Float64Array | null) => Float64Array,
+  visit: (i: number, col: Float64Array | null) => void,
+): number {
   const n = run.valid;
   if (n === 0) return 0;
   const perm = new Int32Array(n);
   for (let k = 0; k < n; k++) perm[k] = k;
   let lastChange = 0;
+  let previous: Float64Array | null = null;
   for (let i = 0; i < run.points; i++) {
-    const r = run.row(i);
-    if (r === null) {
+    const col = rowFor(i, previous);
+    if (!run.rowInOrder(i, perm, col, previous)) {
       visit(i, null);
       continue;
     }
     lastChange = i;
-    const { data, offset } = r;
-    const col = rowFor(i);
-    for (let k = 0; k < n; k++) col[k] = data[offset + perm[k]];
     if (!insertionSortWith(col, perm, n, SHIFT_BUDGET * n)) {
-      // Curves crossing en masse: sort this point from scratch instead.
-      const order = Array.from(perm).sort((x, y) => data[offset + x] - data[offset + y]);
-      for (let k = 0; k < n; k++) {
-        perm[k] = order[k];
-        col[k] = data[offset + order[k]];
-      }
+      // Curves crossing en masse: sort this point from scratch instead (the insertion moved values and
+      // samples together, so col[k] is still sample perm[k]'s value).
+      const at = Array.from({ length: n }, (_, k) => k).sort((x, y) => col[x] - col[y]);
+      const samples = Int32Array.from(at, (k) => perm[k]);
+      col.set(Float64Array.from(at, (k) => col[k]));
+      perm.set(samples);
     }
+    previous = col;
     visit(i, col);
   }
   return lastChange;

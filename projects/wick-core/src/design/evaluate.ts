@@ -623,9 +623,20 @@ function gravityPointwise(
       }
       coef[at + 4] = clampAt(end);
       for (let j = 0; j < scalarDefs.length; j++) scalars[j] = scalarDefs[j].get(x);
+      // Past the saturation time the curve is h_eq (capped): constant from the first point after it.
+      const tSat = coef[at + 3];
+      if (!(tSat < times[last])) return times.length;
+      let lo = 0;
+      let hi = last;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        if (times[mid] > tSat) hi = mid;
+        else lo = mid + 1;
+      }
+      return lo;
     },
-    fill(i, coef, count, row) {
-      gravityRowInto(coef, count, times[i], rootTimes[i], row);
+    fill(i, coef, order, count, row) {
+      gravityRowInto(coef, order, count, times[i], rootTimes[i], row);
     },
   };
 }

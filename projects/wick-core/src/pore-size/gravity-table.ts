@@ -103,12 +103,14 @@ export function gravityRowValue(coef: Float64Array, at: number, t: number, rootT
 }
 
 /**
- * `count` curves at ONE time t (√t = rootT) into `row`, from their {@link gravityRowCoefficients}: the Monte
- * Carlo band reads a point of all its samples at a time. The loop stays in this module with the kernel it
- * calls, so that it compiles to one tight loop under any module loader.
+ * `count` curves at ONE time t (√t = rootT) into `row`, from their {@link gravityRowCoefficients}, taken in the
+ * order given: `row[k]` is the curve whose coefficients start at `order[k] · GRAVITY_ROW_WIDTH`. The Monte Carlo
+ * band reads a point of all its samples at a time, in the order it sorted them at the previous point. The loop
+ * stays in this module with the kernel it calls, so that it compiles to one tight loop under any module loader.
  */
-export function gravityRowInto(coef: Float64Array, count: number, t: number, rootT: number, row: Float64Array): void {
-  for (let k = 0, at = 0; k < count; k++, at += GRAVITY_ROW_WIDTH) {
+export function gravityRowInto(coef: Float64Array, order: Int32Array, count: number, t: number, rootT: number, row: Float64Array): void {
+  for (let k = 0; k < count; k++) {
+    const at = order[k] * GRAVITY_ROW_WIDTH;
     const h = t > coef[at + 3] ? coef[at + 2] : gravityPoint(coef[at], coef[at + 1], coef[at + 2], rootT);
     row[k] = Math.min(h, coef[at + 4]);
   }
