@@ -16,11 +16,11 @@ import {
 import { diameterFromLinearDensity } from '../fibre-bed/fibre';
 import {
   davies,
-  gebart,
-  happel,
+  gebartWith,
+  happelWith,
   jacksonJames,
   kozenyCarman,
-  tomadakisRobertson,
+  tomadakisRobertsonWith,
   type PermeabilityInput,
   type PermeabilityResult,
 } from '../permeability/correlations';
@@ -67,18 +67,18 @@ export interface Resolved {
 type CorrelationFn = (input: PermeabilityInput, kozenyConstant?: number) => PermeabilityResult;
 
 const CORRELATIONS: Readonly<Record<PermeabilityCorrelationId, CorrelationFn>> = {
-  'tomadakis-robertson-2d-in-plane': (i) => tomadakisRobertson({ ...i, structure: '2d-in-plane' }),
-  'tomadakis-robertson-2d-through-plane': (i) => tomadakisRobertson({ ...i, structure: '2d-through-plane' }),
-  'tomadakis-robertson-3d': (i) => tomadakisRobertson({ ...i, structure: '3d' }),
+  'tomadakis-robertson-2d-in-plane': tomadakisRobertsonWith('2d-in-plane'),
+  'tomadakis-robertson-2d-through-plane': tomadakisRobertsonWith('2d-through-plane'),
+  'tomadakis-robertson-3d': tomadakisRobertsonWith('3d'),
   'kozeny-carman': (i, k) => kozenyCarman({ ...i, kozenyConstant: k }),
   davies: (i) => davies(i),
-  'happel-across': (i) => happel({ ...i, direction: 'across' }),
-  'happel-along': (i) => happel({ ...i, direction: 'along' }),
+  'happel-across': happelWith('across'),
+  'happel-along': happelWith('along'),
   'jackson-james': (i) => jacksonJames(i),
-  'gebart-across-quadratic': (i) => gebart({ ...i, direction: 'across', packing: 'quadratic' }),
-  'gebart-across-hexagonal': (i) => gebart({ ...i, direction: 'across', packing: 'hexagonal' }),
-  'gebart-along-quadratic': (i) => gebart({ ...i, direction: 'along', packing: 'quadratic' }),
-  'gebart-along-hexagonal': (i) => gebart({ ...i, direction: 'along', packing: 'hexagonal' }),
+  'gebart-across-quadratic': gebartWith('across', 'quadratic'),
+  'gebart-across-hexagonal': gebartWith('across', 'hexagonal'),
+  'gebart-along-quadratic': gebartWith('along', 'quadratic'),
+  'gebart-along-hexagonal': gebartWith('along', 'hexagonal'),
 };
 
 /** Family field names → variant input paths, so a family's complaint points at the right form field. */

@@ -1,5 +1,8 @@
 import { DomainError } from '../errors';
 import {
+  gebartWith,
+  happelWith,
+  tomadakisRobertsonWith,
   compareCorrelations,
   davies,
   gebart,
@@ -216,5 +219,30 @@ describe('compareCorrelations', () => {
     const r = spec.run({ fibreDiameter: 20e-6, porosity: 0.9 }) as { correlations: unknown[] };
     expect(r.correlations.length).toBe(14);
     expect(permeabilityModels.every((m) => m.family === 'permeability')).toBeTrue();
+  });
+});
+
+describe('correlations with their options fixed once', () => {
+  // Identity: the fixed forms are the same formulas as the public functions (no separate reference needed).
+  const webs = [0.5, 0.7, 0.85, 0.93, 0.99].map((porosity) => ({ fibreDiameter: 18e-6, porosity }));
+
+  it('give exactly what the public functions give, warnings included', () => {
+    for (const input of webs) {
+      for (const structure of ['1d-parallel', '1d-perpendicular', '2d-in-plane', '2d-through-plane', '3d'] as const) {
+        expect(tomadakisRobertsonWith(structure)(input)).toEqual(tomadakisRobertson({ ...input, structure }));
+      }
+      for (const direction of ['across', 'along'] as const) {
+        expect(happelWith(direction)(input)).toEqual(happel({ ...input, direction }));
+        for (const packing of ['quadratic', 'hexagonal'] as const) {
+          expect(gebartWith(direction, packing)(input)).toEqual(gebart({ ...input, direction, packing }));
+        }
+      }
+    }
+  });
+
+  it('refuse unknown options when made, as the public functions do when called', () => {
+    expect(() => tomadakisRobertsonWith('4d' as never)).toThrowMatching((e) => e instanceof DomainError && e.field === 'structure');
+    expect(() => happelWith('sideways' as never)).toThrowMatching((e) => e instanceof DomainError && e.field === 'direction');
+    expect(() => gebartWith('along', 'cubic' as never)).toThrowMatching((e) => e instanceof DomainError && e.field === 'packing');
   });
 });

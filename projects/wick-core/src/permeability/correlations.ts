@@ -105,6 +105,20 @@ function evaluate(desc: Descriptor, input: PermeabilityInput, extra: Record<stri
 
 // ---- individual formulas, as K/d² (r² = d²/4) ----
 
+/**
+ * Descriptors made once per key and kept: the Monte Carlo band asks for a correlation a thousand times per
+ * keystroke, and building labels and closures each time was a fifth of its work. Keys are few (structures,
+ * packings); Kozeny constants come from input, so that cache is emptied when it grows.
+ */
+function kept<K>(cache: Map<K, Descriptor>, key: K, make: () => Descriptor): Descriptor {
+  let d = cache.get(key);
+  if (d === undefined) {
+    if (cache.size >= 64) cache.clear();
+    cache.set(key, (d = make()));
+  }
+  return d;
+}
+
 /** Kozeny–Carman K/d² = ε³/(16 k_K c²). */
 function kozenyCarmanKd2(c: number, eps: number, kozenyConstant: number): number {
   return (eps * eps * eps) / (16 * kozenyConstant * c * c);
@@ -112,8 +126,10 @@ function kozenyCarmanKd2(c: number, eps: number, kozenyConstant: number): number
 
 const KOZENY_CARMAN_SOURCE = 'P. C. Carman, Trans. Inst. Chem. Eng. 15 (1937) 150';
 
+const KOZENY_DESCRIPTORS = new Map<number, Descriptor>();
+
 function kozenyDescriptor(kozenyConstant: number): Descriptor {
-  return {
+  return kept(KOZENY_DESCRIPTORS, kozenyConstant, () => ({
     id: 'kozeny-carman',
     label: `Kozeny–Carman (k = ${kozenyConstant})`,
     direction: 'isotropic',
@@ -122,7 +138,7 @@ function kozenyDescriptor(kozenyConstant: number): Descriptor {
     min: 0.2,
     max: 0.7,
     k: (c, eps) => kozenyCarmanKd2(c, eps, kozenyConstant),
-  };
+  }));
 }
 
 const DAVIES: Descriptor = {
@@ -182,9 +198,12 @@ const GEBART_SOURCE = 'B. R. Gebart, J. Compos. Mater. 26 (1992) 1100';
 /** Lower end of Gebart's intended range: fibre volume fractions of composite preforms (from memory). */
 const GEBART_MIN = 0.35;
 
+const GEBART_ALONG = new Map<GebartPacking, Descriptor>();
+const GEBART_ACROSS = new Map<GebartPacking, Descriptor>();
+
 function gebartAlong(packing: GebartPacking): Descriptor {
   const { c: cg, maxSolidFraction } = GEBART_CONSTANTS[packing];
-  return {
+  return kept(GEBART_ALONG, packing, () => ({
     id: `gebart-along-${packing}`,
     label: `Gebart (1992), along fibres, ${packing}`,
     direction: 'along',
@@ -192,12 +211,12 @@ function gebartAlong(packing: GebartPacking): Descriptor {
     min: GEBART_MIN,
     max: maxSolidFraction,
     k: (c, eps) => (c > maxSolidFraction ? null : (2 / cg) * ((eps * eps * eps) / (c * c))),
-  };
+  }));
 }
 
 function gebartAcross(packing: GebartPacking): Descriptor {
   const { c1, maxSolidFraction } = GEBART_CONSTANTS[packing];
-  return {
+  return kept(GEBART_ACROSS, packing, () => ({
     id: `gebart-across-${packing}`,
     label: `Gebart (1992), across fibres, ${packing}`,
     direction: 'across',
@@ -209,7 +228,7 @@ function gebartAcross(packing: GebartPacking): Descriptor {
       const gap = Math.max(Math.sqrt(maxSolidFraction / c) - 1, 0);
       return (c1 / 4) * Math.pow(gap, 2.5);
     },
-  };
+  }));
 }
 
 export type TomadakisStructure = '1d-parallel' | '1d-perpendicular' | '2d-in-plane' | '2d-through-plane' | '3d';
@@ -229,9 +248,11 @@ export const TOMADAKIS_PARAMETERS: Readonly<
   '3d': { epsP: 0.037, alpha: 0.661, direction: 'isotropic', label: '3-D random' },
 };
 
+const TOMADAKIS_DESCRIPTORS = new Map<TomadakisStructure, Descriptor>();
+
 function tomadakis(structure: TomadakisStructure): Descriptor {
   const { epsP, alpha, direction, label } = TOMADAKIS_PARAMETERS[structure];
-  return {
+  return kept(TOMADAKIS_DESCRIPTORS, structure, () => ({
     id: `tomadakis-robertson-${structure}`,
     label: `Tomadakis & Robertson (2005), ${label}`,
     direction,
@@ -247,7 +268,7 @@ function tomadakis(structure: TomadakisStructure): Descriptor {
         (Math.pow(eps - epsP, alpha + 2) / (Math.pow(1 - epsP, alpha) * Math.pow((alpha + 1) * eps - epsP, 2)))
       );
     },
-  };
+  }));
 }
 
 // ---- public functions ----
@@ -271,11 +292,15 @@ export function davies(input: PermeabilityInput): PermeabilityResult {
  * Both → ∞ as c → 0 and → 0 as c → 1; intended for dilute arrays (c ≲ 0.4, from memory).
  */
 export function happel(input: PermeabilityInput & { readonly direction: 'across' | 'along' }): PermeabilityResult {
-  const direction = input.direction;
+  const direction = checkDirection(input.direction);
+  return evaluate(direction === 'across' ? HAPPEL_ACROSS : HAPPEL_ALONG, input, { direction });
+}
+
+function checkDirection(direction: unknown): 'across' | 'along' {
   if (direction !== 'across' && direction !== 'along') {
     throw new DomainError('invalid-input', `direction must be "across" or "along" (got ${String(direction)}).`, 'direction');
   }
-  return evaluate(direction === 'across' ? HAPPEL_ACROSS : HAPPEL_ALONG, input, { direction });
+  return direction;
 }
 
 /**
@@ -293,16 +318,17 @@ export function jacksonJames(input: PermeabilityInput): PermeabilityResult {
 export function gebart(
   input: PermeabilityInput & { readonly direction: 'across' | 'along'; readonly packing?: GebartPacking },
 ): PermeabilityResult {
-  const packing = input.packing ?? 'quadratic';
-  if (!Object.hasOwn(GEBART_CONSTANTS, packing)) {
-    throw new DomainError('invalid-input', `packing must be "quadratic" or "hexagonal" (got ${String(packing)}).`, 'packing');
-  }
-  const direction = input.direction;
-  if (direction !== 'across' && direction !== 'along') {
-    throw new DomainError('invalid-input', `direction must be "across" or "along" (got ${String(direction)}).`, 'direction');
-  }
+  const packing = checkPacking(input.packing ?? 'quadratic');
+  const direction = checkDirection(input.direction);
   const desc = direction === 'along' ? gebartAlong(packing) : gebartAcross(packing);
   return evaluate(desc, input, { direction, packing });
+}
+
+function checkPacking(packing: unknown): GebartPacking {
+  if (typeof packing !== 'string' || !Object.hasOwn(GEBART_CONSTANTS, packing)) {
+    throw new DomainError('invalid-input', `packing must be "quadratic" or "hexagonal" (got ${String(packing)}).`, 'packing');
+  }
+  return packing as GebartPacking;
 }
 
 /**
@@ -312,15 +338,41 @@ export function gebart(
 export function tomadakisRobertson(
   input: PermeabilityInput & { readonly structure?: TomadakisStructure },
 ): PermeabilityResult {
-  const structure = input.structure ?? '2d-in-plane';
-  if (!Object.hasOwn(TOMADAKIS_PARAMETERS, structure)) {
+  const structure = checkStructure(input.structure ?? '2d-in-plane');
+  return evaluate(tomadakis(structure), input, { structure });
+}
+
+function checkStructure(structure: unknown): TomadakisStructure {
+  if (typeof structure !== 'string' || !Object.hasOwn(TOMADAKIS_PARAMETERS, structure)) {
     throw new DomainError(
       'invalid-input',
       `structure must be one of ${Object.keys(TOMADAKIS_PARAMETERS).join(', ')} (got ${String(structure)}).`,
       'structure',
     );
   }
-  return evaluate(tomadakis(structure), input, { structure });
+  return structure as TomadakisStructure;
+}
+
+/**
+ * {@link tomadakisRobertson}, {@link gebart} and {@link happel} with their options fixed and checked once, for a
+ * caller that evaluates one many times (the Monte Carlo band: a thousand webs per keystroke); same results.
+ */
+export function tomadakisRobertsonWith(structure: TomadakisStructure): (input: PermeabilityInput) => PermeabilityResult {
+  const desc = tomadakis(checkStructure(structure));
+  const extra = { structure };
+  return (input) => evaluate(desc, input, extra);
+}
+
+export function gebartWith(direction: 'across' | 'along', packing: GebartPacking): (input: PermeabilityInput) => PermeabilityResult {
+  const desc = checkDirection(direction) === 'along' ? gebartAlong(checkPacking(packing)) : gebartAcross(checkPacking(packing));
+  const extra = { direction, packing };
+  return (input) => evaluate(desc, input, extra);
+}
+
+export function happelWith(direction: 'across' | 'along'): (input: PermeabilityInput) => PermeabilityResult {
+  const desc = checkDirection(direction) === 'across' ? HAPPEL_ACROSS : HAPPEL_ALONG;
+  const extra = { direction };
+  return (input) => evaluate(desc, input, extra);
 }
 
 /** Every correlation variant, in the order {@link compareCorrelations} lists them. */
