@@ -25,6 +25,12 @@ function loadPlotly(): Promise<Plotly> {
   return plotly;
 }
 
+/**
+ * The page's draws of charts that are not deferred, chained: a deferred chart starts after them (plotly's
+ * redraw may end in a later task, so waiting for the current task alone is not enough).
+ */
+let pageDraws: Promise<unknown> = Promise.resolve();
+
 const CONFIG = { responsive: true, displaylogo: false, topojsonURL: '', modeBarButtonsToRemove: ['lasso2d', 'select2d'] };
 
 /**
@@ -67,6 +73,12 @@ export class Chart {
    * legend is a noticeable share of each redraw.
    */
   readonly htmlLegend = input(false);
+  /**
+   * A chart beside a live one: its redraws wait until the page's other charts have drawn, so that the live
+   * chart's redraw after a keystroke is not held up behind this one; redraws waiting meanwhile coalesce to the
+   * newest.
+   */
+  readonly deferRedraw = input(false);
   readonly rendered = output<number>();
 
   protected readonly legendItems = computed(() =>
@@ -86,17 +98,36 @@ export class Chart {
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
   private queue: Promise<void> = Promise.resolve();
   private destroyed = false;
+  private waiting: { data: readonly ChartTrace[]; layout: ChartLayout } | null = null;
+  private timer: ReturnType<typeof setTimeout> | undefined;
 
   constructor() {
     afterRenderEffect(() => {
       const el = this.host().nativeElement;
       const data = this.data();
       const layout = this.htmlLegend() ? { ...this.layout(), showlegend: false } : this.layout();
+      if (this.deferRedraw()) {
+        const pending = this.waiting !== null;
+        this.waiting = { data, layout };
+        if (pending) return;
+        // After the current task (the live chart's draw is queued by then) and the draws it queued.
+        this.timer = setTimeout(() => {
+          this.timer = undefined;
+          this.queue = Promise.all([this.queue, pageDraws]).then(() => {
+            const next = this.waiting;
+            this.waiting = null;
+            return next ? this.draw(el, next.data, next.layout) : undefined;
+          });
+        });
+        return;
+      }
       // One draw at a time, in order: the newest data wins without tearing the chart down.
       this.queue = this.queue.then(() => this.draw(el, data, layout));
+      pageDraws = Promise.all([pageDraws, this.queue]);
     });
     inject(DestroyRef).onDestroy(() => {
       this.destroyed = true;
+      clearTimeout(this.timer);
       const el = this.host().nativeElement;
       void loadPlotly().then((p) => p.purge(el));
     });

@@ -75,12 +75,12 @@ export function retentionText(r: StackLayerSummary['retention']): string {
       </mat-tab>
       <mat-tab label="Uptake">
         <ng-template matTabContent>
-          <wick-chart [data]="volumes().data" [layout]="volumes().layout" label="Liquid supplied, absorbed and on the surface against time" data-testid="volume-plot" />
+          <wick-chart [data]="volumes().data" [layout]="volumes().layout" [deferRedraw]="true" label="Liquid supplied, absorbed and on the surface against time" data-testid="volume-plot" />
         </ng-template>
       </mat-tab>
       <mat-tab label="Wetting front">
         <ng-template matTabContent>
-          <wick-chart [data]="front().data" [layout]="front().layout" label="Depth of the wetting front against time" data-testid="front-plot" />
+          <wick-chart [data]="front().data" [layout]="front().layout" [deferRedraw]="true" label="Depth of the wetting front against time" data-testid="front-plot" />
         </ng-template>
       </mat-tab>
     </mat-tab-group>
