@@ -20,6 +20,21 @@ class TwoCharts {
   }
 }
 
+/** A live chart with its axes in a layer of their own. */
+@Component({
+  imports: [Chart],
+  template: `<wick-chart [data]="data()" [layout]="layout()" [layered]="true" label="layered" (rendered)="draws = draws + 1" />`,
+})
+class LayeredChart {
+  readonly data = signal<readonly ChartTrace[]>(line('first'));
+  readonly layout = signal<Record<string, unknown>>(axesUpTo(10));
+  draws = 0;
+}
+
+function axesUpTo(top: number): Record<string, unknown> {
+  return { xaxis: { type: 'linear', range: [0, 2] }, yaxis: { type: 'linear', range: [0, top], title: { text: 'Height (mm)' } } };
+}
+
 function line(name: string): ChartTrace[] {
   return [{ x: [0, 1, 2], y: [0, 1, 4], type: 'scatter', mode: 'lines', name }];
 }
@@ -57,5 +72,38 @@ describe('Chart', () => {
     await until(() => drawn(host, '.beside') === 'third');
     await new Promise((r) => setTimeout(r, 50));
     expect(page.log).toEqual(['live second', 'live third', 'beside third']);
+  });
+
+  it('draws the axes in a layer under the traces and redraws that layer only when the axes change', async () => {
+    TestBed.configureTestingModule({ imports: [LayeredChart] });
+    const fixture = TestBed.createComponent(LayeredChart);
+    const host = fixture.nativeElement as HTMLElement;
+    const page = fixture.componentInstance;
+    fixture.detectChanges();
+    type Drawn = HTMLElement & { data?: { name: string }[]; layout?: { yaxis: { visible?: boolean; range: number[] } } };
+    const axes = host.querySelector('.axes') as Drawn;
+    const traces = host.querySelector('.host') as Drawn;
+    await until(() => page.draws === 1);
+    // The axes layer holds no traces and shows the axes; the traces' layer hides its own (same ranges).
+    expect(axes.data).toEqual([]);
+    expect(axes.querySelector('.ytitle')?.textContent).toBe('Height (mm)');
+    expect(traces.data?.[0].name).toBe('first');
+    expect(traces.layout?.yaxis.visible).toBe(false);
+    expect(traces.layout?.yaxis.range).toEqual([0, 10]);
+    // New data, same axes: the axes layer is left as it was drawn (plotly reports each plot on its element).
+    let axesPlots = 0;
+    (axes as Drawn & { on(event: string, f: () => void): void }).on('plotly_afterplot', () => axesPlots++);
+    page.data.set(line('second'));
+    fixture.detectChanges();
+    await until(() => page.draws === 2);
+    expect(traces.data?.[0].name).toBe('second');
+    expect(axesPlots).toBe(0);
+    // New axes: both layers follow.
+    page.layout.set(axesUpTo(20));
+    fixture.detectChanges();
+    await until(() => page.draws === 3);
+    expect(axesPlots).toBe(1);
+    expect(axes.layout?.yaxis.range).toEqual([0, 20]);
+    expect(traces.layout?.yaxis.range).toEqual([0, 20]);
   });
 });

@@ -42,7 +42,10 @@ const CONFIG = { responsive: true, displaylogo: false, topojsonURL: '', modeBarB
   selector: 'wick-chart',
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <div #host class="host" role="img" [attr.aria-label]="label()"></div>
+    <div class="frame" role="img" [attr.aria-label]="label()">
+      <div #axes class="axes" [hidden]="!layered()"></div>
+      <div #host class="host"></div>
+    </div>
     @if (htmlLegend()) {
       <ul class="legend">
         @for (item of legendItems(); track item.name) {
@@ -57,7 +60,8 @@ const CONFIG = { responsive: true, displaylogo: false, topojsonURL: '', modeBarB
   styles: `
     :host { display: block; }
     /* Containment: plotly measures text (forcing layout) on every redraw; this keeps that layout to the chart. */
-    .host { width: 100%; height: var(--wick-plot-height, 340px); contain: strict; }
+    .frame { position: relative; width: 100%; height: var(--wick-plot-height, 340px); contain: strict; }
+    .host, .axes { position: absolute; inset: 0; }
     .failed { color: var(--mat-sys-error); }
     .legend { display: flex; flex-wrap: wrap; gap: 4px 16px; list-style: none; margin: 0; padding: 0 0 0 64px; font: var(--mat-sys-body-small); }
     .swatch { display: inline-block; width: 24px; height: 8px; margin-right: 6px; border-top: 2px solid; vertical-align: middle; }
@@ -79,6 +83,12 @@ export class Chart {
    * newest.
    */
   readonly deferRedraw = input(false);
+  /**
+   * Axes in a layer of their own under the traces, redrawn only when they change: a live chart's redraw after
+   * a keystroke then draws the traces alone (a third less work for plotly). Zooming is off in this mode, since
+   * the two layers would part; hovering works as usual.
+   */
+  readonly layered = input(false);
   readonly rendered = output<number>();
 
   protected readonly legendItems = computed(() =>
@@ -96,6 +106,9 @@ export class Chart {
 
   protected readonly failed = signal('');
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
+  private readonly axes = viewChild.required<ElementRef<HTMLDivElement>>('axes');
+  /** The axes layer's layout as last drawn (JSON), to redraw it only when it changes. */
+  private axesDrawn = '';
   private queue: Promise<void> = Promise.resolve();
   private destroyed = false;
   private waiting: { data: readonly ChartTrace[]; layout: ChartLayout } | null = null;
@@ -129,7 +142,11 @@ export class Chart {
       this.destroyed = true;
       clearTimeout(this.timer);
       const el = this.host().nativeElement;
-      void loadPlotly().then((p) => p.purge(el));
+      const axes = this.axes().nativeElement;
+      void loadPlotly().then((p) => {
+        p.purge(el);
+        p.purge(axes);
+      });
     });
   }
 
@@ -139,20 +156,34 @@ export class Chart {
       if (this.destroyed) return;
       const style = getComputedStyle(el);
       const text = style.getPropertyValue('--mat-sys-on-surface').trim() || '#1b1b1f';
+      const full: ChartLayout = {
+        margin: { l: 64, r: 16, t: 16, b: 48 },
+        paper_bgcolor: 'rgba(0,0,0,0)',
+        plot_bgcolor: 'rgba(0,0,0,0)',
+        font: { family: 'Roboto, sans-serif', size: 12, color: text },
+        legend: { orientation: 'h', y: -0.22 },
+        ...layout,
+      };
       const t0 = performance.now();
-      await p.react(
-        el,
-        data as object[],
-        {
-          margin: { l: 64, r: 16, t: 16, b: 48 },
-          paper_bgcolor: 'rgba(0,0,0,0)',
-          plot_bgcolor: 'rgba(0,0,0,0)',
-          font: { family: 'Roboto, sans-serif', size: 12, color: text },
-          legend: { orientation: 'h', y: -0.22 },
-          ...layout,
-        },
-        CONFIG,
-      );
+      if (this.layered()) {
+        const { shapes, ...axesLayout } = full;
+        const fixed = (axis: unknown) => ({ ...(axis as object), fixedrange: true });
+        const axesLayer = { ...axesLayout, xaxis: fixed(full['xaxis']), yaxis: fixed(full['yaxis']), showlegend: false };
+        const axesJson = JSON.stringify(axesLayer);
+        if (axesJson !== this.axesDrawn) {
+          await p.react(this.axes().nativeElement, [], axesLayer, { ...CONFIG, staticPlot: true });
+          this.axesDrawn = axesJson;
+        }
+        const hidden = (axis: unknown) => ({ ...(axis as object), visible: false, fixedrange: true });
+        await p.react(
+          el,
+          data as object[],
+          { ...full, shapes: shapes ?? [], xaxis: hidden(full['xaxis']), yaxis: hidden(full['yaxis']), dragmode: false },
+          { ...CONFIG, displayModeBar: false },
+        );
+      } else {
+        await p.react(el, data as object[], full, CONFIG);
+      }
       this.failed.set('');
       this.rendered.emit(performance.now() - t0);
     } catch (e) {
