@@ -87,16 +87,22 @@ export function uptakeLayout(r: VariantResultsOk, timeAxis: 'linear' | 'log' = '
 export function massTraces(r: VariantResultsOk): PlotTrace[] {
   if (!r.curves.mass || !r.curves.massRate) return [];
   const g = (xs: readonly (number | null)[]) => xs.map((x) => (x === null ? null : x * 1000));
+  // The rate falls towards zero as the front levels off; on the log axis its last round-off values would
+  // stretch the scale over twenty decades, so rates below 1/10,000 of the peak are left undrawn.
+  const peak = Math.max(0, ...r.curves.massRate.map((x) => x ?? 0));
+  const rate = r.curves.massRate.map((x) => (x === null || !(x >= peak * 1e-4) ? null : x * 1000));
   return [
     { x: r.curves.time, y: g(r.curves.mass), type: 'scatter', mode: 'lines', line: { color: PALETTE[0], width: 2 }, name: 'Uptake (g)' },
-    { x: r.curves.time, y: g(r.curves.massRate), type: 'scatter', mode: 'lines', line: { color: PALETTE[1], width: 1.5 }, name: 'Rate (g/s)', yaxis: 'y2' },
+    { x: r.curves.time, y: rate, type: 'scatter', mode: 'lines', line: { color: PALETTE[1], width: 1.5 }, name: 'Rate (g/s)', yaxis: 'y2' },
   ];
 }
 
 export const MASS_LAYOUT: PlotLayout = {
+  // Room on the right for the rate axis's labels (the chart's default margin there is for no axis).
+  margin: { l: 64, r: 72, t: 16, b: 48 },
   xaxis: { title: { text: 'Time (s)' } },
   yaxis: { title: { text: 'Uptake (g)' }, rangemode: 'tozero' },
-  yaxis2: { title: { text: 'Rate (g/s)' }, overlaying: 'y', side: 'right', type: 'log' },
+  yaxis2: { title: { text: 'Rate (g/s)' }, overlaying: 'y', side: 'right', type: 'log', exponentformat: 'power', dtick: 1 },
 };
 
 /** Equilibrium saturation against height (capillary bundle of the pore-size distribution), as steps. */
