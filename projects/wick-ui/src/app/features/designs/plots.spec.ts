@@ -1,5 +1,5 @@
 import { evaluateVariant, VARIANT_EXAMPLE, type VariantResultsOk } from 'wick-core';
-import { massTraces } from './plots';
+import { massTraces, uptakeTraces } from './plots';
 
 describe('massTraces', () => {
   it('draws the uptake rate down to 1/10,000 of its peak, not the round-off tail of a levelled-off front', () => {
@@ -16,5 +16,18 @@ describe('massTraces', () => {
     expect(Math.min(...drawn)).toBeGreaterThanOrEqual(peak * 1000 * 1e-4);
     // The uptake itself is drawn whole.
     expect((uptake['y'] as (number | null)[]).every((y) => y !== null)).toBeTrue();
+  });
+});
+
+describe('uptakeTraces', () => {
+  it('hovers the curves and checkpoints with units, and not the band', () => {
+    const r = evaluateVariant(VARIANT_EXAMPLE, { curvePoints: 200, samples: 200 }) as VariantResultsOk;
+    const traces = uptakeTraces(r);
+    for (const t of traces) {
+      if (t['hoverinfo'] === 'skip') continue;
+      expect(t['hovertemplate']).toContain(' s · ');
+      expect(t['hovertemplate']).toContain(' mm');
+    }
+    expect(traces.filter((t) => t['hoverinfo'] === 'skip').length).toBe(2); // P10 and P90 of the band
   });
 });

@@ -6,6 +6,9 @@ export const PALETTE = ['#00838f', '#ef6c00', '#6a1b9a', '#2e7d32', '#c62828', '
 
 const mm = (xs: readonly (number | null)[]) => xs.map((x) => (x === null ? null : x * 1000));
 
+/** Hover text of the uptake chart: time and length with units, three significant digits. */
+const UPTAKE_HOVER = '%{x:.3g} s · %{y:.3g} mm<extra>%{fullData.name}</extra>';
+
 /** Height (or wetted radius) against time: with and without gravity, the P10–P90 band, checkpoints, equilibrium. */
 export function uptakeTraces(r: VariantResultsOk): PlotTrace[] {
   const t = r.curves.time;
@@ -29,9 +32,9 @@ export function uptakeTraces(r: VariantResultsOk): PlotTrace[] {
       },
     );
   }
-  traces.push({ x: t, y: mm(r.curves.height), type: 'scatter', mode: 'lines', line: { color: PALETTE[0], width: 2.5 }, name: radial ? 'Wetted radius' : 'With gravity' });
+  traces.push({ x: t, y: mm(r.curves.height), type: 'scatter', mode: 'lines', line: { color: PALETTE[0], width: 2.5 }, name: radial ? 'Wetted radius' : 'With gravity', hovertemplate: UPTAKE_HOVER });
   if (!radial && r.configuration !== 'horizontal-strip') {
-    traces.push({ x: t, y: mm(r.curves.heightNoGravity), type: 'scatter', mode: 'lines', line: { color: PALETTE[1], width: 1.5, dash: 'dash' }, name: 'Without gravity' });
+    traces.push({ x: t, y: mm(r.curves.heightNoGravity), type: 'scatter', mode: 'lines', line: { color: PALETTE[1], width: 1.5, dash: 'dash' }, name: 'Without gravity', hovertemplate: UPTAKE_HOVER });
   }
   // Checkpoints in one trace: reading times (circles) and targets reached (diamonds).
   const reached = r.toHeights.filter((c) => c.time !== null && c.time <= t[t.length - 1]);
@@ -46,6 +49,7 @@ export function uptakeTraces(r: VariantResultsOk): PlotTrace[] {
       symbol: [...r.atTimes.map(() => 'circle'), ...reached.map(() => 'diamond')],
     },
     name: 'Checkpoints',
+    hovertemplate: UPTAKE_HOVER,
   });
   return traces;
 }
