@@ -26,12 +26,26 @@ export function gravityCurveFast(a: number, b: number, times: Float64Array, root
   // Times ascend (curveTimes): past t = 40 t* the curve is flat at a/b, so only the rising part is evaluated.
   let rising = n;
   if (b > 0) {
-    const tSat = (T_SATURATED * a) / (b * b);
-    while (rising > 0 && times[rising - 1] > tSat) rising--;
+    rising = saturatedFrom(times, (T_SATURATED * a) / (b * b));
     const heq = a / b;
     for (let i = rising; i < n; i++) out[i] = heq;
   }
   if (rising > 0) gravityCurveFromRoots(a, b, rootTimes.subarray(0, rising), out.subarray(0, rising));
+}
+
+/**
+ * The first of the ascending `times` past the saturation time `tSat`, from which the curve is flat at h_eq
+ * (times.length when none is).
+ */
+export function saturatedFrom(times: ArrayLike<number>, tSat: number): number {
+  let lo = 0;
+  let hi = times.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (times[mid] > tSat) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
 }
 
 /**

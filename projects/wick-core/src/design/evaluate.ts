@@ -22,7 +22,7 @@ import { porousStripUptake } from '../washburn/porous-strip';
 import { radialRadiusUnchecked, radialSpreading } from '../washburn/radial';
 import { bandPart, mergeBandParts, percentileBands, type BandModel, type BandPart, type BandResult, type PointwiseCurves } from './band';
 import { GRAVITY_ROW_WIDTH, gravityRowInto, gravityRowValue } from '../pore-size/gravity-table';
-import { gravityCurveCoefficients, gravityCurveFast, radialCurveFast } from './curve-tables';
+import { gravityCurveCoefficients, gravityCurveFast, radialCurveFast, saturatedFrom } from './curve-tables';
 import { VARIANT_EQUATIONS, permeabilityEquation } from './equations';
 import { TOLERANCE_FIELDS } from './fields';
 import { readVariantInputs } from './read-inputs';
@@ -624,16 +624,7 @@ function gravityPointwise(
       coef[at + 4] = clampAt(end);
       for (let j = 0; j < scalarDefs.length; j++) scalars[j] = scalarDefs[j].get(x);
       // Past the saturation time the curve is h_eq (capped): constant from the first point after it.
-      const tSat = coef[at + 3];
-      if (!(tSat < times[last])) return times.length;
-      let lo = 0;
-      let hi = last;
-      while (lo < hi) {
-        const mid = (lo + hi) >> 1;
-        if (times[mid] > tSat) hi = mid;
-        else lo = mid + 1;
-      }
-      return lo;
+      return saturatedFrom(times, coef[at + 3]);
     },
     fill(i, coef, order, count, row) {
       gravityRowInto(coef, order, count, times[i], rootTimes[i], row);

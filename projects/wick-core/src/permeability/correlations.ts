@@ -105,20 +105,6 @@ function evaluate(desc: Descriptor, input: PermeabilityInput, extra: Record<stri
 
 // ---- individual formulas, as K/d² (r² = d²/4) ----
 
-/**
- * Descriptors made once per key and kept: the Monte Carlo band asks for a correlation a thousand times per
- * keystroke, and building labels and closures each time was a fifth of its work. Keys are few (structures,
- * packings); Kozeny constants come from input, so that cache is emptied when it grows.
- */
-function kept<K>(cache: Map<K, Descriptor>, key: K, make: () => Descriptor): Descriptor {
-  let d = cache.get(key);
-  if (d === undefined) {
-    if (cache.size >= 64) cache.clear();
-    cache.set(key, (d = make()));
-  }
-  return d;
-}
-
 /** Kozeny–Carman K/d² = ε³/(16 k_K c²). */
 function kozenyCarmanKd2(c: number, eps: number, kozenyConstant: number): number {
   return (eps * eps * eps) / (16 * kozenyConstant * c * c);
@@ -126,10 +112,18 @@ function kozenyCarmanKd2(c: number, eps: number, kozenyConstant: number): number
 
 const KOZENY_CARMAN_SOURCE = 'P. C. Carman, Trans. Inst. Chem. Eng. 15 (1937) 150';
 
+/**
+ * Kozeny descriptors by constant, kept: the Monte Carlo band asks for the correlation a thousand times per
+ * keystroke with one constant, and building the label and closure each time was a noticeable share of its work.
+ * The constants come from input, so the cache is emptied when it grows.
+ */
 const KOZENY_DESCRIPTORS = new Map<number, Descriptor>();
 
 function kozenyDescriptor(kozenyConstant: number): Descriptor {
-  return kept(KOZENY_DESCRIPTORS, kozenyConstant, () => ({
+  const kept = KOZENY_DESCRIPTORS.get(kozenyConstant);
+  if (kept) return kept;
+  if (KOZENY_DESCRIPTORS.size >= 64) KOZENY_DESCRIPTORS.clear();
+  const desc: Descriptor = {
     id: 'kozeny-carman',
     label: `Kozeny–Carman (k = ${kozenyConstant})`,
     direction: 'isotropic',
@@ -138,7 +132,9 @@ function kozenyDescriptor(kozenyConstant: number): Descriptor {
     min: 0.2,
     max: 0.7,
     k: (c, eps) => kozenyCarmanKd2(c, eps, kozenyConstant),
-  }));
+  };
+  KOZENY_DESCRIPTORS.set(kozenyConstant, desc);
+  return desc;
 }
 
 const DAVIES: Descriptor = {
@@ -198,12 +194,9 @@ const GEBART_SOURCE = 'B. R. Gebart, J. Compos. Mater. 26 (1992) 1100';
 /** Lower end of Gebart's intended range: fibre volume fractions of composite preforms (from memory). */
 const GEBART_MIN = 0.35;
 
-const GEBART_ALONG = new Map<GebartPacking, Descriptor>();
-const GEBART_ACROSS = new Map<GebartPacking, Descriptor>();
-
 function gebartAlong(packing: GebartPacking): Descriptor {
   const { c: cg, maxSolidFraction } = GEBART_CONSTANTS[packing];
-  return kept(GEBART_ALONG, packing, () => ({
+  return {
     id: `gebart-along-${packing}`,
     label: `Gebart (1992), along fibres, ${packing}`,
     direction: 'along',
@@ -211,12 +204,12 @@ function gebartAlong(packing: GebartPacking): Descriptor {
     min: GEBART_MIN,
     max: maxSolidFraction,
     k: (c, eps) => (c > maxSolidFraction ? null : (2 / cg) * ((eps * eps * eps) / (c * c))),
-  }));
+  };
 }
 
 function gebartAcross(packing: GebartPacking): Descriptor {
   const { c1, maxSolidFraction } = GEBART_CONSTANTS[packing];
-  return kept(GEBART_ACROSS, packing, () => ({
+  return {
     id: `gebart-across-${packing}`,
     label: `Gebart (1992), across fibres, ${packing}`,
     direction: 'across',
@@ -228,7 +221,7 @@ function gebartAcross(packing: GebartPacking): Descriptor {
       const gap = Math.max(Math.sqrt(maxSolidFraction / c) - 1, 0);
       return (c1 / 4) * Math.pow(gap, 2.5);
     },
-  }));
+  };
 }
 
 export type TomadakisStructure = '1d-parallel' | '1d-perpendicular' | '2d-in-plane' | '2d-through-plane' | '3d';
@@ -248,11 +241,9 @@ export const TOMADAKIS_PARAMETERS: Readonly<
   '3d': { epsP: 0.037, alpha: 0.661, direction: 'isotropic', label: '3-D random' },
 };
 
-const TOMADAKIS_DESCRIPTORS = new Map<TomadakisStructure, Descriptor>();
-
 function tomadakis(structure: TomadakisStructure): Descriptor {
   const { epsP, alpha, direction, label } = TOMADAKIS_PARAMETERS[structure];
-  return kept(TOMADAKIS_DESCRIPTORS, structure, () => ({
+  return {
     id: `tomadakis-robertson-${structure}`,
     label: `Tomadakis & Robertson (2005), ${label}`,
     direction,
@@ -268,7 +259,7 @@ function tomadakis(structure: TomadakisStructure): Descriptor {
         (Math.pow(eps - epsP, alpha + 2) / (Math.pow(1 - epsP, alpha) * Math.pow((alpha + 1) * eps - epsP, 2)))
       );
     },
-  }));
+  };
 }
 
 // ---- public functions ----

@@ -1,4 +1,4 @@
-import { Component, ElementRef, inject, signal } from '@angular/core';
+import { Component, ElementRef, inject, signal, type Type } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Chart, type ChartTrace } from './chart';
 
@@ -53,13 +53,17 @@ const until = async (ok: () => boolean, ms = 10_000) => {
   }
 };
 
+/** The page under test, rendered once. */
+function mount<T>(page: Type<T>) {
+  TestBed.configureTestingModule({ imports: [page] });
+  const fixture = TestBed.createComponent(page);
+  fixture.detectChanges();
+  return { fixture, host: fixture.nativeElement as HTMLElement, page: fixture.componentInstance };
+}
+
 describe('Chart', () => {
   it('redraws a chart beside the live one after it, once, with the newest data', async () => {
-    TestBed.configureTestingModule({ imports: [TwoCharts] });
-    const fixture = TestBed.createComponent(TwoCharts);
-    const host = fixture.nativeElement as HTMLElement;
-    const page = fixture.componentInstance;
-    fixture.detectChanges();
+    const { fixture, host, page } = mount(TwoCharts);
     await until(() => drawn(host, '.live') === 'first' && drawn(host, '.beside') === 'first');
 
     // Two changes in one task (two keystrokes' results): the live chart draws each as it comes, the chart
@@ -75,11 +79,7 @@ describe('Chart', () => {
   });
 
   it('draws the axes in a layer under the traces and redraws that layer only when the axes change', async () => {
-    TestBed.configureTestingModule({ imports: [LayeredChart] });
-    const fixture = TestBed.createComponent(LayeredChart);
-    const host = fixture.nativeElement as HTMLElement;
-    const page = fixture.componentInstance;
-    fixture.detectChanges();
+    const { fixture, host, page } = mount(LayeredChart);
     type Drawn = HTMLElement & { data?: { name: string }[]; layout?: { yaxis: { visible?: boolean; range: number[] } } };
     const axes = host.querySelector('.axes') as Drawn;
     const traces = host.querySelector('.host') as Drawn;
